@@ -1,0 +1,85 @@
+/** Small utilities over IR trees shared by the symbolic analyses: bindings, closures, variable dependence. */
+import type { IrNode } from './ir';
+
+/** Children of a node, in evaluation order. */
+export function irChildren(n: IrNode): IrNode[] {
+  switch (n.op) {
+    case 'const': case 'var': return [];
+    case 'neg': case 'not': return [n.a];
+    case 'call': return [...n.args];
+    case 'cond': return [n.test, n.then, n.otherwise];
+    case 'let': return [n.value, n.body];
+    default: return [n.a, n.b];
+  }
+}
+
+/** slot → bound value for every `let` in the tree (slots are unique within one tree). */
+export function collectBindings(root: IrNode): Map<number, IrNode> {
+  const out = new Map<number, IrNode>();
+  const stack = [root];
+  while (stack.length > 0) {
+    const n = stack.pop()!;
+    if (n.op === 'let') out.set(n.slot, n.value);
+    stack.push(...irChildren(n));
+  }
+  return out;
+}
+
+/** Highest slot used in the tree, plus one. */
+export function slotCountOf(root: IrNode, arity = 2): number {
+  let max = arity - 1;
+  const stack = [root];
+  while (stack.length > 0) {
+    const n = stack.pop()!;
+    if (n.op === 'var' || n.op === 'let') max = Math.max(max, n.slot);
+    stack.push(...irChildren(n));
+  }
+  return max + 1;
+}
+
+/** The node as a closed function of the free variables: wrapped in the `let` bindings it refers to, transitively. */
+export function closeOver(node: IrNode, bindings: ReadonlyMap<number, IrNode>, arity = 2): IrNode {
+  const needed = new Set<number>();
+  const stack = [node];
+  while (stack.length > 0) {
+    const n = stack.pop()!;
+    if (n.op === 'var' && n.slot >= arity && !needed.has(n.slot)) {
+      needed.add(n.slot);
+      const b = bindings.get(n.slot);
+      if (b) stack.push(b);
+    }
+    stack.push(...irChildren(n));
+  }
+  let body = node;
+  for (const slot of [...needed].sort((x, y) => y - x)) {
+    const value = bindings.get(slot);
+    if (value) body = { op: 'let', slot, value, body, range: node.range };
+  }
+  return body;
+}
+
+/** Bit mask of the free variables a node depends on (bit k = slot k < arity), following bindings; memoised. */
+export function dependenceOf(bindings: ReadonlyMap<number, IrNode>, arity = 2): (n: IrNode) => number {
+  const memo = new Map<IrNode, number>();
+  const dep = (root: IrNode): number => {
+    // Iterative post-order so deep trees cannot overflow.
+    const stack: { n: IrNode; done: boolean }[] = [{ n: root, done: false }];
+    while (stack.length > 0) {
+      const top = stack.pop()!;
+      if (memo.has(top.n)) continue;
+      const kids = top.n.op === 'var' && top.n.slot >= arity && bindings.has(top.n.slot)
+        ? [bindings.get(top.n.slot)!] : irChildren(top.n);
+      if (!top.done) {
+        stack.push({ n: top.n, done: true });
+        for (const c of kids) if (!memo.has(c)) stack.push({ n: c, done: false });
+        continue;
+      }
+      let m = 0;
+      if (top.n.op === 'var' && top.n.slot < arity) m = 1 << top.n.slot;
+      for (const c of kids) m |= memo.get(c) ?? 0;
+      memo.set(top.n, m);
+    }
+    return memo.get(root)!;
+  };
+  return dep;
+}
