@@ -1,0 +1,67 @@
+/**
+ * Singular values of a real or complex rows×cols matrix.
+ *
+ * Method: Golub–Kahan bidiagonalization and implicit-shift QR on the bidiagonal (Golub & Van Loan, Matrix
+ * Computations, 4th ed. 2013, §8.6; LINPACK dsvdc), through ml-matrix's SingularValueDecomposition without singular
+ * vectors. A complex matrix A = R + iS is handled through its real embedding [[R, −S], [S, R]] (2rows×2cols), whose
+ * singular values are those of A, each twice (if A = U Σ Vᴴ, the embedding of U and of V are orthogonal and the
+ * embedding of Σ is Σ ⊕ Σ); each value is taken once, as the mean of the two copies.
+ *
+ * Output: min(rows, cols) singular values in descending order.
+ */
+
+import { Matrix, SingularValueDecomposition } from 'ml-matrix';
+import { checkDimension, checkMatrix, isRealPart } from './dense';
+
+export function singularValues(re: Float64Array, im: Float64Array | null, rows: number, cols: number): Float64Array {
+  checkDimension('singularValues', 'rows', rows);
+  checkDimension('singularValues', 'cols', cols);
+  checkMatrix('singularValues', 're', re, rows, cols);
+  if (im !== null) checkMatrix('singularValues', 'im', im, rows, cols);
+  const count = Math.min(rows, cols);
+
+  if (isRealPart(im)) return descending(svdValues(re, rows, cols), count);
+
+  const r2 = 2 * rows;
+  const c2 = 2 * cols;
+  const emb = new Float64Array(r2 * c2);
+  const s = im as Float64Array;
+  for (let i = 0; i < rows; i++) {
+    for (let j = 0; j < cols; j++) {
+      const a = re[i * cols + j];
+      const b = s[i * cols + j];
+      emb[i * c2 + j] = a;
+      emb[(i + rows) * c2 + j + cols] = a;
+      emb[(i + rows) * c2 + j] = b;
+      emb[i * c2 + j + cols] = -b;
+    }
+  }
+  const doubled = descending(svdValues(emb, r2, c2), 2 * count);
+  const out = new Float64Array(count);
+  for (let k = 0; k < count; k++) out[k] = 0.5 * (doubled[2 * k] + doubled[2 * k + 1]);
+  return out;
+}
+
+function svdValues(a: Float64Array, rows: number, cols: number): number[] {
+  // ml-matrix's SVD expects at least as many rows as columns; the transpose has the same singular values.
+  const tall = rows >= cols;
+  const m = tall ? new Matrix(rows, cols) : new Matrix(cols, rows);
+  for (let i = 0; i < rows; i++) {
+    for (let j = 0; j < cols; j++) {
+      if (tall) m.set(i, j, a[i * cols + j]);
+      else m.set(j, i, a[i * cols + j]);
+    }
+  }
+  const svd = new SingularValueDecomposition(m, {
+    computeLeftSingularVectors: false,
+    computeRightSingularVectors: false,
+  });
+  return svd.diagonal;
+}
+
+function descending(values: number[], count: number): Float64Array {
+  const sorted = Float64Array.from(values).sort().reverse();
+  const out = new Float64Array(count);
+  for (let k = 0; k < count; k++) out[k] = Math.max(0, sorted[k] ?? 0);
+  return out;
+}
