@@ -1,0 +1,71 @@
+/**
+ * The numerical analysis of one kernel: the spectral engine's result as report data and diagnostics, cached by the
+ * hash of the kernel's resolved definition and the options, so editing one kernel does not recompute the others.
+ */
+import type { Diagnostic } from '../diagnostics/types';
+import { makeDiagnostic } from '../diagnostics/make';
+import type { KernelSymbol } from '../semantics/model';
+import type { CancellationToken } from '../util/cancellation';
+import { runSpectralEngine, type SpectralResult } from '../numerics/engine/spectralEngine';
+import { crossCheckSeparable } from '../numerics/engine/degenerate';
+import type { AnalysisOptions, SpectrumReport } from './types';
+
+export interface KernelNumerics {
+  readonly result: SpectralResult;
+  readonly spectrum: SpectrumReport | null;
+  readonly diagnostics: Diagnostic[];
+}
+
+const cacheLimit = 256;
+const cache = new Map<string, { result: SpectralResult; spectrum: SpectrumReport | null; notes: ((k: KernelSymbol) => Diagnostic)[] }>();
+
+export function clearSpectralCache(): void {
+  cache.clear();
+}
+
+function optionsKey(o: AnalysisOptions): string {
+  return `${o.eigenCount}|${o.timeBudgetMs}|${o.maxResolution}|${o.targetAccuracy}|${o.gridPoints}`;
+}
+
+function compute(k: KernelSymbol, options: AnalysisOptions, token?: CancellationToken) {
+  const ir = k.ir!;
+  const domain: [number, number] = [k.domain!.a, k.domain!.b];
+  const result = runSpectralEngine(k.name, ir, domain, options, token);
+  const notes: ((k: KernelSymbol) => Diagnostic)[] = [];
+  let spectrum = result.spectrum;
+  if (!spectrum) {
+    const reason = result.reason ?? 'unknown reason';
+    notes.push((sym) => makeDiagnostic('spectrum-unavailable', sym.nameRange, { name: sym.name, reason }));
+    return { result, spectrum, notes };
+  }
+  const separable = crossCheckSeparable(ir, domain, result, options);
+  if (separable) {
+    spectrum = separable.spectrum;
+    for (const m of separable.mismatches) {
+      notes.push((sym) => makeDiagnostic('methods-disagree', sym.nameRange, { name: sym.name, ...m }));
+    }
+  }
+  if (!spectrum.converged) {
+    const reached = result.reached.toExponential(1);
+    const target = result.target.toExponential(0);
+    notes.push((sym) => makeDiagnostic('not-converged', sym.nameRange, {
+      name: sym.name, reached, target, budget: options.timeBudgetMs,
+    }, { figures: { reached: result.reached, target: result.target } }));
+  }
+  return { result, spectrum, notes };
+}
+
+export function analyzeKernelNumerics(k: KernelSymbol, options: AnalysisOptions, token?: CancellationToken): KernelNumerics | null {
+  if (!k.ir || !k.domain || !k.hash) return null;
+  const key = `${k.hash}|${optionsKey(options)}`;
+  let entry = cache.get(key);
+  if (!entry) {
+    entry = compute(k, options, token);
+    cache.set(key, entry);
+    if (cache.size > cacheLimit) cache.delete(cache.keys().next().value as string);
+  } else {
+    cache.delete(key);
+    cache.set(key, entry); // most recently used last
+  }
+  return { result: entry.result, spectrum: entry.spectrum, diagnostics: entry.notes.map((n) => n(k)) };
+}

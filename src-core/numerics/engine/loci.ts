@@ -1,0 +1,265 @@
+/**
+ * Where a kernel is not smooth, read from its expression. abs, min, max, sign, floor, comparisons and conditionals
+ * make kinks or jumps along the zero set of their argument (or of the difference of their arguments); log,
+ * negative or fractional powers, sqrt and divisions make singular behaviour along the zero set of their argument
+ * (or denominator). When that zero set is a straight line a·t + b·s + c = 0 it is returned exactly, so that the
+ * discretisation can put panel breakpoints on it (lines t = c, s = c) or split panel pairs along it (oblique
+ * lines such as the diagonal t = s). Zero sets that are not straight lines are reported as `unknown`.
+ */
+import type { TextRange } from '../../syntax/textRange';
+import type { IrFunction, IrNode } from '../../semantics/ir';
+import { closeOver } from '../../semantics/irTools';
+
+/** The line ct·t + cs·s + c0 = 0, normalised so that max(|ct|, |cs|) = 1 and the first nonzero of (ct, cs) is > 0. */
+export interface Line {
+  readonly ct: number;
+  readonly cs: number;
+  readonly c0: number;
+}
+
+export type LocusKind = 'kink' | 'jump' | 'singular';
+
+export interface Locus {
+  readonly line: Line;
+  readonly kind: LocusKind;
+  /** The expression node that creates it. */
+  readonly range: TextRange;
+}
+
+export interface LociResult {
+  readonly loci: readonly Locus[];
+  /**
+   * Non-smooth places whose zero set is not a straight line (the discretisation refines uniformly instead).
+   * `node` is the expression whose zero set it is, closed over its bindings (a function of t and s), so callers can
+   * test numerically whether it vanishes on the square at all (for comparisons: the difference; else a constant).
+   */
+  readonly unknown: readonly { kind: LocusKind; range: TextRange; node: IrNode }[];
+}
+
+interface Affine { ct: number; cs: number; c0: number }
+
+const rank: Record<LocusKind, number> = { kink: 0, jump: 1, singular: 2 };
+
+export function normaliseLine(a: Affine): Line | null {
+  const m = Math.max(Math.abs(a.ct), Math.abs(a.cs));
+  if (!(m > 0) || !Number.isFinite(m)) return null;
+  let k = 1 / m;
+  const lead = Math.abs(a.ct) > 0 ? a.ct : a.cs;
+  if (lead < 0) k = -k;
+  const clean = (x: number) => (Math.abs(x) < 1e-15 ? 0 : x);
+  return { ct: clean(a.ct * k), cs: clean(a.cs * k), c0: clean(a.c0 * k) };
+}
+
+export function sameLine(p: Line, q: Line): boolean {
+  const tol = 1e-12;
+  return Math.abs(p.ct - q.ct) < tol && Math.abs(p.cs - q.cs) < tol && Math.abs(p.c0 - q.c0) < tol * (1 + Math.abs(p.c0));
+}
+
+class LociFinder {
+  private readonly bindings = new Map<number, IrNode>();
+  private readonly affineCache = new Map<IrNode, Affine | null>();
+  readonly loci: Locus[] = [];
+  readonly unknown: { kind: LocusKind; range: TextRange; node: IrNode }[] = [];
+
+  constructor(private readonly domain: readonly [number, number]) {}
+
+  closeOver(node: IrNode): IrNode {
+    return closeOver(node, this.bindings);
+  }
+
+  affine(n: IrNode): Affine | null {
+    if (this.affineCache.has(n)) return this.affineCache.get(n)!;
+    const r = this.computeAffine(n);
+    this.affineCache.set(n, r);
+    return r;
+  }
+
+  private computeAffine(n: IrNode): Affine | null {
+    switch (n.op) {
+      case 'const':
+        return n.im === 0 ? { ct: 0, cs: 0, c0: n.re } : null;
+      case 'var': {
+        if (n.slot === 0) return { ct: 1, cs: 0, c0: 0 };
+        if (n.slot === 1) return { ct: 0, cs: 1, c0: 0 };
+        const b = this.bindings.get(n.slot);
+        return b ? this.affine(b) : null;
+      }
+      case 'neg': {
+        const a = this.affine(n.a);
+        return a && { ct: -a.ct, cs: -a.cs, c0: -a.c0 };
+      }
+      case 'add': case 'sub': {
+        const a = this.affine(n.a);
+        const b = this.affine(n.b);
+        if (!a || !b) return null;
+        const k = n.op === 'add' ? 1 : -1;
+        return { ct: a.ct + k * b.ct, cs: a.cs + k * b.cs, c0: a.c0 + k * b.c0 };
+      }
+      case 'mul': {
+        const a = this.affine(n.a);
+        const b = this.affine(n.b);
+        if (!a || !b) return null;
+        if (a.ct === 0 && a.cs === 0) return { ct: a.c0 * b.ct, cs: a.c0 * b.cs, c0: a.c0 * b.c0 };
+        if (b.ct === 0 && b.cs === 0) return { ct: b.c0 * a.ct, cs: b.c0 * a.cs, c0: b.c0 * a.c0 };
+        return null;
+      }
+      case 'div': {
+        const a = this.affine(n.a);
+        const b = this.affine(n.b);
+        if (!a || !b || b.ct !== 0 || b.cs !== 0 || b.c0 === 0) return null;
+        return { ct: a.ct / b.c0, cs: a.cs / b.c0, c0: a.c0 / b.c0 };
+      }
+      case 'let':
+        return this.affine(n.body);
+      default:
+        return null;
+    }
+  }
+
+  /** The lines whose union is the zero set of n, or null when that set is not known to be a union of lines. */
+  zeroLines(n: IrNode): Line[] | null {
+    const a = this.affine(n);
+    if (a) {
+      if (a.ct === 0 && a.cs === 0) return [];
+      const l = normaliseLine(a);
+      return l ? [l] : null;
+    }
+    switch (n.op) {
+      case 'neg': return this.zeroLines(n.a);
+      case 'call':
+        if (n.fn === 'abs' || n.fn === 'sqrt' || n.fn === 'conj' || n.fn === 'sinh' || n.fn === 'tanh' || n.fn === 'atan') {
+          return this.zeroLines(n.args[0]);
+        }
+        return null;
+      case 'pow': {
+        const p = this.affine(n.b);
+        if (p && p.ct === 0 && p.cs === 0 && p.c0 > 0) return this.zeroLines(n.a);
+        return null;
+      }
+      case 'mul': {
+        const a = this.zeroLines(n.a);
+        const b = this.zeroLines(n.b);
+        return a && b ? [...a, ...b] : null;
+      }
+      case 'div': return this.zeroLines(n.a);
+      case 'let': return this.zeroLines(n.body);
+      default: return null;
+    }
+  }
+
+  private add(lines: Line[] | null, kind: LocusKind, range: TextRange, zeroOf?: IrNode): void {
+    if (!lines) {
+      this.unknown.push({ kind, range, node: zeroOf ? this.closeOver(zeroOf) : { op: 'const', re: 0, im: 0, range } });
+      return;
+    }
+    for (const line of lines) {
+      const existing = this.loci.findIndex((l) => sameLine(l.line, line));
+      if (existing < 0) this.loci.push({ line, kind, range });
+      else if (rank[kind] > rank[this.loci[existing].kind]) this.loci[existing] = { line, kind, range };
+    }
+  }
+
+  private differenceNode(a: IrNode, b: IrNode): IrNode {
+    return { op: 'sub', a, b, range: a.range };
+  }
+
+  private difference(a: IrNode, b: IrNode): Line[] | null {
+    const x = this.affine(a);
+    const y = this.affine(b);
+    if (!x || !y) return null;
+    const d = { ct: x.ct - y.ct, cs: x.cs - y.cs, c0: x.c0 - y.c0 };
+    if (d.ct === 0 && d.cs === 0) return [];
+    const l = normaliseLine(d);
+    return l ? [l] : null;
+  }
+
+  /** Lines x = k for the integers k that the affine x takes inside the square (at most 64, else unknown). */
+  private integerLines(x: Affine): Line[] | null {
+    const [a, b] = this.domain;
+    const corners = [[a, a], [a, b], [b, a], [b, b]].map(([t, s]) => x.ct * t + x.cs * s + x.c0);
+    const lo = Math.min(...corners);
+    const hi = Math.max(...corners);
+    const first = Math.floor(lo) + 1;
+    const last = Math.ceil(hi) - 1;
+    if (last - first + 1 > 64) return null;
+    const out: Line[] = [];
+    for (let k = first; k <= last; k++) {
+      const l = normaliseLine({ ct: x.ct, cs: x.cs, c0: x.c0 - k });
+      if (l) out.push(l);
+    }
+    return out;
+  }
+
+  visit(root: IrNode): void {
+    const stack: IrNode[] = [root];
+    while (stack.length > 0) {
+      const n = stack.pop()!;
+      switch (n.op) {
+        case 'const': case 'var': break;
+        case 'neg': case 'not': stack.push(n.a); break;
+        case 'let':
+          this.bindings.set(n.slot, n.value);
+          stack.push(n.body, n.value);
+          break;
+        case 'cond': stack.push(n.otherwise, n.then, n.test); break;
+        case 'lt': case 'le': case 'gt': case 'ge': case 'eq': case 'ne':
+          this.add(this.difference(n.a, n.b), 'jump', n.range, this.differenceNode(n.a, n.b));
+          stack.push(n.b, n.a);
+          break;
+        case 'div': {
+          const denominator = this.affine(n.b);
+          if (!(denominator && denominator.ct === 0 && denominator.cs === 0)) this.add(this.zeroLines(n.b), 'singular', n.range, n.b);
+          stack.push(n.b, n.a);
+          break;
+        }
+        case 'pow': {
+          const p = this.affine(n.b);
+          const wholePower = p && p.ct === 0 && p.cs === 0 && Number.isInteger(p.c0) && p.c0 >= 0;
+          const base = this.affine(n.a);
+          const constantBase = base && base.ct === 0 && base.cs === 0;
+          if (!wholePower && !constantBase) this.add(this.zeroLines(n.a), 'singular', n.range, n.a);
+          stack.push(n.b, n.a);
+          break;
+        }
+        case 'call': {
+          const x = n.args[0];
+          switch (n.fn) {
+            case 'abs': this.add(this.zeroLines(x), 'kink', n.range, x); break;
+            case 'sign': this.add(this.zeroLines(x), 'jump', n.range, x); break;
+            case 'sqrt': case 'log': this.add(this.zeroLines(x), 'singular', n.range, x); break;
+            case 'floor': {
+              const a = this.affine(x);
+              this.add(a ? this.integerLines(a) : null, 'jump', n.range, x);
+              break;
+            }
+            case 'min': case 'max':
+              for (let i = 0; i < n.args.length; i++) {
+                for (let j = i + 1; j < n.args.length; j++) {
+                  this.add(this.difference(n.args[i], n.args[j]), 'kink', n.range, this.differenceNode(n.args[i], n.args[j]));
+                }
+              }
+              break;
+            default: break;
+          }
+          for (let k = n.args.length - 1; k >= 0; k--) stack.push(n.args[k]);
+          break;
+        }
+        default:
+          stack.push(n.b, n.a);
+      }
+    }
+  }
+}
+
+/** Loci of a kernel on the square [a, b]²: only lines that meet the closed square are kept. */
+export function findLoci(fn: IrFunction, domain: readonly [number, number]): LociResult {
+  const finder = new LociFinder(domain);
+  finder.visit(fn.root);
+  const [a, b] = domain;
+  const meets = (l: Line) => {
+    const v = [[a, a], [a, b], [b, a], [b, b]].map(([t, s]) => l.ct * t + l.cs * s + l.c0);
+    const scale = Math.max(1, Math.abs(a), Math.abs(b));
+    return Math.min(...v) <= 1e-12 * scale && Math.max(...v) >= -1e-12 * scale;
+  };
+  return { loci: finder.loci.filter((l) => meets(l.line)), unknown: finder.unknown };
+}

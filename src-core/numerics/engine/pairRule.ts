@@ -1,0 +1,167 @@
+/**
+ * The 2D quadrature rule for one panel pair P × Q of the Galerkin matrix. Where no locus meets the rectangle, a
+ * tensor Gauss–Legendre rule (exponential convergence for analytic integrands). Where oblique loci (the diagonal
+ * t = s, t + s = c, ...) cross it, the rectangle is cut along them into convex pieces, each triangulated and
+ * integrated with collapsed (Duffy / Stroud conical-product) Gauss rules, so the integrand is smooth on every
+ * piece (M. G. Duffy, SIAM J. Numer. Anal. 19 (1982); A. H. Stroud, Approximate Calculation of Multiple Integrals,
+ * 1971). Pieces next to a singular locus get rules graded geometrically toward the singular edge or vertex.
+ */
+import {
+  collapsedTriangleRule, gaussLegendre, mapRule, splitConvexPolygon, triangulateConvex, type Vec2,
+} from '../quadrature';
+import { normaliseLine, type Line, type Locus } from './loci';
+
+/** A tensor Gauss rule on the pair (point k = i·ns + j), or a rule on the unit square mapped onto the pair. */
+export type PairRule =
+  | { readonly tensor: { readonly tNodes: Float64Array; readonly tWeights: Float64Array; readonly sNodes: Float64Array; readonly sWeights: Float64Array } }
+  | { readonly unit: UnitPairRule; readonly t0: number; readonly s0: number; readonly ht: number; readonly hs: number };
+
+export interface PairRuleOptions {
+  /** Gauss points per direction (tensor) or per collapsed direction (triangles). */
+  readonly order: number;
+  /** Geometric levels toward singular edges and vertices. */
+  readonly singularLevels: number;
+  /** Gauss points on each geometrically graded panel. */
+  readonly gradedPoints: number;
+}
+
+const lineValue = (l: Line, p: Vec2) => l.ct * p[0] + l.cs * p[1] + l.c0;
+
+function tensorRule(t0: number, t1: number, s0: number, s1: number, order: number): PairRule {
+  const g = gaussLegendre(order);
+  const rt = mapRule(g, t0, t1);
+  const rs = mapRule(g, s0, s1);
+  return { tensor: { tNodes: rt.nodes, tWeights: rt.weights, sNodes: rs.nodes, sWeights: rs.weights } };
+}
+
+interface Tri { v0: Vec2; v1: Vec2; v2: Vec2; grade: 'none' | 'edge' | 'vertex' }
+
+function onLine(l: Line, p: Vec2, tol: number): boolean {
+  return Math.abs(lineValue(l, p)) <= tol;
+}
+
+/** Triangles of one convex piece, arranged so that singular edges are v1–v2 and singular vertices are v0. */
+function trianglesOfPiece(poly: readonly Vec2[], singular: readonly Line[], tol: number): Tri[] {
+  const n = poly.length;
+  if (n < 3) return [];
+  for (const l of singular) {
+    for (let i = 0; i < n; i++) {
+      const p = poly[i];
+      const q = poly[(i + 1) % n];
+      if (!onLine(l, p, tol) || !onLine(l, q, tol)) continue;
+      // Singular edge p–q: apex m = the vertex farthest from the line.
+      let m = -1;
+      let best = -1;
+      for (let j = 0; j < n; j++) {
+        const d = Math.abs(lineValue(l, poly[j]));
+        if (d > best) { best = d; m = j; }
+      }
+      const tris: Tri[] = [{ v0: poly[m], v1: p, v2: q, grade: 'edge' }];
+      for (let j = 0; j < n; j++) {
+        const a = poly[j];
+        const b = poly[(j + 1) % n];
+        if (j === i || j === m || (j + 1) % n === m) continue;
+        // Triangle (m, a, b): a vertex on the singular line becomes the apex.
+        if (onLine(l, a, tol)) tris.push({ v0: a, v1: b, v2: poly[m], grade: 'vertex' });
+        else if (onLine(l, b, tol)) tris.push({ v0: b, v1: poly[m], v2: a, grade: 'vertex' });
+        else tris.push({ v0: poly[m], v1: a, v2: b, grade: 'none' });
+      }
+      return tris;
+    }
+  }
+  for (const l of singular) {
+    const i = poly.findIndex((p) => onLine(l, p, tol));
+    if (i < 0) continue;
+    const tris: Tri[] = [];
+    for (let j = 1; j + 1 < n; j++) {
+      tris.push({ v0: poly[i], v1: poly[(i + j) % n], v2: poly[(i + j + 1) % n], grade: 'vertex' });
+    }
+    return tris;
+  }
+  return triangulateConvex(poly).map(([v0, v1, v2]) => ({ v0, v1, v2, grade: 'none' as const }));
+}
+
+export function pairRule(
+  t0: number, t1: number, s0: number, s1: number, oblique: readonly Locus[], options: PairRuleOptions,
+): PairRule {
+  const size = Math.max(t1 - t0, s1 - s0);
+  const tol = 1e-12 * Math.max(1, Math.abs(t0), Math.abs(t1), Math.abs(s0), Math.abs(s1));
+  const corners: Vec2[] = [[t0, s0], [t1, s0], [t1, s1], [t0, s1]];
+  const crossing: Locus[] = [];
+  const touching: Line[] = [];
+  for (const locus of oblique) {
+    const v = corners.map((c) => lineValue(locus.line, c));
+    const lo = Math.min(...v);
+    const hi = Math.max(...v);
+    if (lo < -tol && hi > tol) crossing.push(locus);
+    else if (locus.kind === 'singular' && (Math.abs(lo) <= tol || Math.abs(hi) <= tol)) touching.push(locus.line);
+  }
+  if (crossing.length === 0 && touching.length === 0) return tensorRule(t0, t1, s0, s1, options.order);
+
+  const ht = t1 - t0;
+  const hs = s1 - s0;
+  // The rule is built once on the unit square for each configuration (the loci mapped there) and reused: graded
+  // meshes repeat the same few configurations at every scale.
+  const toUnit = (l: Line): Line => normaliseLine({ ct: l.ct * ht, cs: l.cs * hs, c0: l.ct * t0 + l.cs * s0 + l.c0 })!;
+  const crossingUnit = crossing.map((l) => ({ line: toUnit(l.line), kind: l.kind }));
+  const touchingUnit = touching.map(toUnit);
+  const key = [
+    options.order, options.singularLevels, options.gradedPoints,
+    ...crossingUnit.map((l) => `${l.kind[0]}${l.line.ct.toPrecision(12)},${l.line.cs.toPrecision(12)},${l.line.c0.toPrecision(12)}`),
+    ...touchingUnit.map((l) => `v${l.ct.toPrecision(12)},${l.cs.toPrecision(12)},${l.c0.toPrecision(12)}`),
+  ].join('|');
+  let unit = unitRules.get(key);
+  if (!unit) {
+    unit = unitRule(crossingUnit, touchingUnit, options);
+    unitRules.set(key, unit);
+    if (unitRules.size > 4096) unitRules.delete(unitRules.keys().next().value as string);
+  }
+  return { unit, t0, s0, ht, hs };
+}
+
+export interface UnitPairRule {
+  /** Points and weights on the unit square [0, 1]². */
+  readonly x: Float64Array;
+  readonly y: Float64Array;
+  readonly w: Float64Array;
+  /** True for points within rounding distance of a singular locus (a value there that is not finite counts as 0). */
+  readonly nearSingular: Uint8Array;
+}
+
+const unitRules = new Map<string, UnitPairRule>();
+
+function unitRule(crossing: readonly { line: Line; kind: Locus['kind'] }[], touching: readonly Line[], options: PairRuleOptions): UnitPairRule {
+  let pieces: Vec2[][] = [[[0, 0], [1, 0], [1, 1], [0, 1]]];
+  for (const locus of crossing) {
+    const next: Vec2[][] = [];
+    for (const poly of pieces) {
+      const { below, above } = splitConvexPolygon(poly, locus.line.ct, locus.line.cs, -locus.line.c0);
+      if (below.length >= 3) next.push(below);
+      if (above.length >= 3) next.push(above);
+    }
+    pieces = next;
+  }
+  const singular = [...crossing.filter((l) => l.kind === 'singular').map((l) => l.line), ...touching];
+  const xs: number[] = [];
+  const ys: number[] = [];
+  const ws: number[] = [];
+  const near: number[] = [];
+  for (const poly of pieces) {
+    for (const tri of trianglesOfPiece(poly, singular, 1e-12)) {
+      const rule = collapsedTriangleRule(tri.v0, tri.v1, tri.v2, options.order,
+        tri.grade === 'edge' ? { gradeTowardEdge: { levels: options.singularLevels, pointsPerPanel: options.gradedPoints, minDistance: 0 } }
+          : tri.grade === 'vertex'
+            ? { gradeTowardVertex: { levels: options.singularLevels, pointsPerPanel: options.gradedPoints, minDistance: 0 } }
+            : undefined);
+      for (let k = 0; k < rule.w.length; k++) {
+        xs.push(rule.x[k]);
+        ys.push(rule.y[k]);
+        ws.push(rule.w[k]);
+        let d = Infinity;
+        for (const l of singular) d = Math.min(d, Math.abs(l.ct * rule.x[k] + l.cs * rule.y[k] + l.c0));
+        near.push(d < 1e-6 ? 1 : 0);
+      }
+    }
+  }
+  return { x: Float64Array.from(xs), y: Float64Array.from(ys), w: Float64Array.from(ws), nearSingular: Uint8Array.from(near) };
+}

@@ -1,0 +1,99 @@
+/**
+ * Eigenvalues, eigenvectors and the largest singular value of one Galerkin matrix. A matrix whose Hermitian defect
+ * is at rounding level (or that is Hermitian by construction) is solved as Hermitian after replacing it by its
+ * Hermitian part (A + Aᴴ)/2, so that eigenvalues are real and eigenvectors orthonormal; otherwise the general
+ * complex eigensolver is used and the norm is the largest singular value.
+ */
+import {
+  generalEigen, hermitianDefect, hermitianEigen, singularValues, symmetricEigen,
+} from '../linalg';
+import type { GalerkinMatrix } from './assemble';
+
+export interface LevelEigenpair {
+  readonly re: number;
+  readonly im: number;
+  /** Coefficients in the orthonormal basis (real and imaginary parts; im null when real). */
+  readonly vecRe: Float64Array;
+  readonly vecIm: Float64Array | null;
+}
+
+export interface LevelSolution {
+  readonly matrix: GalerkinMatrix;
+  readonly hermitian: boolean;
+  /** ‖A − Aᴴ‖_F / ‖A‖_F of the Galerkin matrix. */
+  readonly defect: number;
+  /** Leading eigenpairs, by decreasing modulus (at most `keep`). */
+  readonly pairs: readonly LevelEigenpair[];
+  /** All eigenvalues by decreasing modulus (for matching across levels). */
+  readonly allRe: Float64Array;
+  readonly allIm: Float64Array;
+  /** Largest singular value of A (= max |λ| when Hermitian). */
+  readonly sigmaMax: number;
+  /** ‖A‖_F, the discrete Hilbert–Schmidt norm. */
+  readonly frobenius: number;
+  readonly converged: boolean;
+}
+
+/** Matrices whose Hermitian defect is below this are solved as Hermitian. */
+export const hermitianDefectThreshold = 1e-9;
+
+function column(vectors: Float64Array, n: number, k: number): Float64Array {
+  const v = new Float64Array(n);
+  for (let i = 0; i < n; i++) v[i] = vectors[i * n + k];
+  return v;
+}
+
+export function solveLevel(matrix: GalerkinMatrix, keep: number, forceHermitian = false): LevelSolution {
+  const { n, re, im } = matrix;
+  let frob2 = 0;
+  for (let k = 0; k < re.length; k++) frob2 += re[k] * re[k] + (im ? im[k] * im[k] : 0);
+  const frobenius = Math.sqrt(frob2);
+  const defect = frobenius > 0 ? hermitianDefect(re, im, n) : 0;
+  const hermitian = forceHermitian || defect <= hermitianDefectThreshold;
+  const count = Math.min(keep, n);
+
+  if (hermitian) {
+    const hr = new Float64Array(n * n);
+    const hi = im ? new Float64Array(n * n) : null;
+    for (let i = 0; i < n; i++) {
+      for (let j = 0; j < n; j++) {
+        hr[i * n + j] = 0.5 * (re[i * n + j] + re[j * n + i]);
+        if (hi && im) hi[i * n + j] = 0.5 * (im[i * n + j] - im[j * n + i]);
+      }
+    }
+    let values: Float64Array;
+    let vr: Float64Array;
+    let vi: Float64Array | null = null;
+    if (hi) {
+      const e = hermitianEigen(hr, hi, n);
+      values = e.values; vr = e.vectorsRe; vi = e.vectorsIm;
+    } else {
+      const e = symmetricEigen(hr, n);
+      values = e.values; vr = e.vectors;
+    }
+    const order = Array.from(values.keys()).sort((x, y) => Math.abs(values[y]) - Math.abs(values[x]) || values[y] - values[x]);
+    const allRe = Float64Array.from(order.map((k) => values[k]));
+    const pairs = order.slice(0, count).map((k) => ({
+      re: values[k], im: 0, vecRe: column(vr, n, k), vecIm: vi ? column(vi, n, k) : null,
+    }));
+    return {
+      matrix, hermitian, defect, pairs, allRe, allIm: new Float64Array(n),
+      sigmaMax: Math.abs(allRe[0] ?? 0), frobenius, converged: true,
+    };
+  }
+
+  const e = generalEigen(re, im, n);
+  const order = Array.from(e.valuesRe.keys()).sort(
+    (x, y) => Math.hypot(e.valuesRe[y], e.valuesIm[y]) - Math.hypot(e.valuesRe[x], e.valuesIm[x]),
+  );
+  const pairs = order.slice(0, count).map((k) => ({
+    re: e.valuesRe[k], im: e.valuesIm[k], vecRe: column(e.vectorsRe, n, k), vecIm: column(e.vectorsIm, n, k),
+  }));
+  const sv = singularValues(re, im, n, n);
+  return {
+    matrix, hermitian, defect, pairs,
+    allRe: Float64Array.from(order.map((k) => e.valuesRe[k])),
+    allIm: Float64Array.from(order.map((k) => e.valuesIm[k])),
+    sigmaMax: sv[0] ?? 0, frobenius, converged: e.converged,
+  };
+}

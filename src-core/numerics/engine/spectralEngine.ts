@@ -1,0 +1,200 @@
+/**
+ * The spectral engine: climbs a ladder of Galerkin discretisations (see ladder.ts) until the leading eigenvalues
+ * and the norm agree between levels to the target accuracy or the time budget is spent, and reports every figure
+ * with an error estimate from the level-to-level differences (errorEstimate.ts).
+ */
+import type { IrFunction } from '../../semantics/ir';
+import { compileKernel, type CompiledKernel } from '../../semantics/evaluator';
+import type { CancellationToken } from '../../util/cancellation';
+import { throwIfCancelled } from '../../util/cancellation';
+import type { AnalysisOptions, EigenEstimate, Estimate, NormEstimate, SpectrumReport } from '../../analysis/types';
+import { findLoci, type Locus, type LociResult } from './loci';
+import { planMesh } from './mesh';
+import { buildLadder, discretisationSize } from './ladder';
+import { assembleGalerkin } from './assemble';
+import { solveLevel, type LevelSolution } from './solveLevel';
+import { estimateSequenceError, roundingFloor } from './errorEstimate';
+import { estimateSingularity, type SingularityEstimate } from './singularity';
+import { schurBound, traceIntegral } from './bounds';
+import { sampleEigenfunctions } from './eigenfunctions';
+import { confirmUnknownLoci } from './confirmLoci';
+
+export interface SpectralResult {
+  readonly spectrum: SpectrumReport | null;
+  /** Why there is no spectrum (unbounded kernel, values not finite at quadrature points), else null. */
+  readonly reason: string | null;
+  readonly loci: LociResult;
+  readonly singularities: readonly SingularityEstimate[];
+  /** The finest level solved (for checks and exports), or null. */
+  readonly finest: LevelSolution | null;
+  readonly hermitian: boolean;
+  /** Hermitian defect of the finest Galerkin matrix. */
+  readonly defect: number;
+  /** Reached relative accuracy (max eigenvalue error / norm) and the target it was held to. */
+  readonly reached: number;
+  readonly target: number;
+}
+
+const now = () => (typeof performance !== 'undefined' ? performance.now() : Date.now());
+
+/** Target relative accuracy by kernel class: smooth and piecewise smooth kernels can do far better than singular ones. */
+export function classTarget(options: AnalysisOptions, singular: readonly SingularityEstimate[]): number {
+  if (singular.some((s) => s.type === 'power' && s.exponent >= 0.5)) return Math.max(options.targetAccuracy, 1e-6);
+  if (singular.some((s) => s.type !== 'none')) return Math.max(options.targetAccuracy, 1e-8);
+  if (singular.length > 0) return Math.max(options.targetAccuracy, 1e-9);
+  return options.targetAccuracy;
+}
+
+function matchChain(levels: readonly LevelSolution[], re: number, im: number): [number, number][] {
+  const seq: [number, number][] = [[re, im]];
+  let cr = re;
+  let ci = im;
+  for (let L = levels.length - 2; L >= 0; L--) {
+    const lv = levels[L];
+    let best = 0;
+    let bestD = Infinity;
+    for (let k = 0; k < lv.allRe.length; k++) {
+      const d = Math.hypot(lv.allRe[k] - cr, lv.allIm[k] - ci);
+      if (d < bestD) { bestD = d; best = k; }
+    }
+    cr = lv.allRe[best];
+    ci = lv.allIm[best];
+    seq.unshift([cr, ci]);
+  }
+  return seq;
+}
+
+export function runSpectralEngine(
+  name: string,
+  ir: IrFunction,
+  domain: readonly [number, number],
+  options: AnalysisOptions,
+  token?: CancellationToken,
+  compiled?: CompiledKernel,
+): SpectralResult {
+  const start = now();
+  const kernel = compiled ?? compileKernel(ir);
+  const [a, b] = domain;
+  const raw = findLoci(ir, domain);
+  const loci: LociResult = { loci: raw.loci, unknown: confirmUnknownLoci(raw.unknown, domain) };
+  const singularLoci = loci.loci.filter((l) => l.kind === 'singular');
+  const singularities = singularLoci
+    .map((l) => estimateSingularity(kernel, l, a, b))
+    .filter((s): s is SingularityEstimate => s !== null);
+  const empty = (reason: string): SpectralResult => ({
+    spectrum: null, reason, loci, singularities, finest: null, hermitian: false, defect: NaN, reached: NaN, target: NaN,
+  });
+  const fatal = singularities.find((s) => !s.integrable);
+  if (fatal) {
+    const where = describeLine(fatal.locus);
+    return empty(`|K| grows like d^(−${fatal.exponent.toFixed(2)}) toward ${where}, which is not integrable, so the operator is not bounded on L²`);
+  }
+  const target = classTarget(options, singularities);
+  const plan = planMesh(loci.loci, a, b);
+  const oblique: Locus[] = loci.loci.filter((l) => l.line.ct !== 0 && l.line.cs !== 0);
+  const ladder = buildLadder(plan, {
+    singular: singularLoci.length > 0,
+    unknownLoci: loci.unknown.length > 0,
+    maxSize: options.maxResolution,
+    minSize: Math.max(16, 2 * options.eigenCount),
+  });
+  const count = options.eigenCount;
+  const levels: LevelSolution[] = [];
+  let lastTime = 0;
+  let reached = Infinity;
+  let estimates: { eig: EigenEstimate[]; norm: Estimate; hs: Estimate | null } | null = null;
+  const hsFinite = singularities.every((s) => s.squareIntegrable);
+
+  for (let k = 0; k < ladder.length; k++) {
+    throwIfCancelled(token);
+    const d = ladder[k];
+    const elapsed = now() - start;
+    // At least three levels always (so every estimate has a convergence rate behind it); then the budget rules.
+    if (levels.length >= 3) {
+      const growth = (discretisationSize(d) / levels[levels.length - 1].matrix.n) ** 2.5;
+      if (elapsed + lastTime * growth > options.timeBudgetMs) break;
+    }
+    const t0 = now();
+    const matrix = assembleGalerkin(kernel, d, oblique, token);
+    if (matrix.nonFinite > 0) {
+      if (levels.length === 0) return empty('K is not finite at points inside the square where the analysis must evaluate it');
+      break;
+    }
+    const sol = solveLevel(matrix, Math.max(count, 1) + 4);
+    levels.push(sol);
+    lastTime = now() - t0;
+    if (levels.length < 2) continue;
+    estimates = estimateAll(levels, count, hsFinite, singularLoci.length > 0);
+    const scale = Math.max(estimates.norm.value, 1e-300);
+    reached = Math.max(estimates.norm.error, ...estimates.eig.map((e) => e.error)) / scale;
+    if (reached <= target) break;
+  }
+  const finest = levels[levels.length - 1];
+  if (!finest) return empty('the analysis was stopped before the first discretisation finished');
+  if (!estimates) estimates = estimateAll(levels, count, hsFinite, singularLoci.length > 0);
+
+  const schur = schurBound(kernel, loci.loci, a, b, token);
+  const trace = singularities.some((s) => s.type !== 'none' && s.locus.line.ct === -s.locus.line.cs && s.locus.line.c0 === 0)
+    ? null : traceIntegral(kernel, loci.loci, a, b, token);
+  const norm = bracketNorm(estimates.norm, estimates.hs, schur);
+  const spectrum: SpectrumReport = {
+    eigenvalues: estimates.eig,
+    eigenfunctions: sampleEigenfunctions(finest, a, b, options.gridPoints, Math.min(count, finest.pairs.length)),
+    norm,
+    hsNorm: estimates.hs,
+    trace: trace ? { value: trace.value, error: trace.error } : null,
+    method: describeMethod(finest, levels.length),
+    converged: reached <= target,
+    elapsedMs: now() - start,
+  };
+  return {
+    spectrum, reason: null, loci, singularities, finest, hermitian: finest.hermitian, defect: finest.defect,
+    reached, target,
+  };
+}
+
+function estimateAll(levels: readonly LevelSolution[], count: number, hsFinite: boolean, cautious: boolean) {
+  const finest = levels[levels.length - 1];
+  const floor = roundingFloor(finest.sigmaMax, finest.matrix.n);
+  const eig: EigenEstimate[] = finest.pairs.slice(0, count).map((p) => {
+    const seq = matchChain(levels, p.re, p.im);
+    const e = estimateSequenceError(seq.slice(-3), floor, cautious);
+    return { re: p.re, im: finest.hermitian ? 0 : p.im, error: e.error };
+  });
+  const normSeq = levels.slice(-3).map((l) => [l.sigmaMax, 0] as [number, number]);
+  const ne = estimateSequenceError(normSeq, floor, cautious);
+  const norm = { value: finest.sigmaMax, error: ne.error };
+  let hs: Estimate | null = null;
+  if (hsFinite) {
+    const hsSeq = levels.slice(-3).map((l) => [Math.sqrt(l.matrix.hsSquared), 0] as [number, number]);
+    const he = estimateSequenceError(hsSeq, 8 * Number.EPSILON * Math.sqrt(finest.matrix.hsSquared), cautious);
+    hs = { value: Math.sqrt(finest.matrix.hsSquared), error: he.error };
+  }
+  return { eig, norm, hs };
+}
+
+function bracketNorm(norm: Estimate, hs: Estimate | null, schur: Estimate | null): NormEstimate {
+  const lower = Math.max(0, norm.value - norm.error);
+  let upper = Infinity;
+  if (hs) upper = Math.min(upper, hs.value + hs.error);
+  if (schur) upper = Math.min(upper, schur.value + schur.error);
+  upper = Math.max(upper, norm.value + norm.error);
+  return { value: norm.value, error: norm.error, lower, upper };
+}
+
+export function describeLine(l: Locus): string {
+  const { ct, cs, c0 } = l.line;
+  const fmt = (x: number) => String(Number(x.toPrecision(6)));
+  if (cs === 0) return `the line t = ${fmt(-c0 / ct)}`;
+  if (ct === 0) return `the line s = ${fmt(-c0 / cs)}`;
+  if (ct === -cs && c0 === 0) return 'the diagonal t = s';
+  if (ct === cs) return `the line t + s = ${fmt(-c0 / ct)}`;
+  return `the line ${fmt(ct)}·t ${cs < 0 ? '−' : '+'} ${fmt(Math.abs(cs))}·s = ${fmt(-c0)}`;
+}
+
+function describeMethod(finest: LevelSolution, levels: number): string {
+  const d = finest.matrix.discretisation;
+  const panels = d.breakpoints.length - 1;
+  return `Galerkin, piecewise Legendre degree ${d.degree} on ${panels} panel${panels === 1 ? '' : 's'} (N = ${finest.matrix.n})`
+    + `${d.singularLevels > 0 ? ', graded singular quadrature' : ''}, ${levels} levels compared`;
+}
