@@ -31,6 +31,11 @@ function absLineIntegral(kernel: CompiledKernel, loci: readonly Locus[], fixedIs
   const fixed = new Float64Array(30);
   const re = new Float64Array(30);
   const im = new Float64Array(30);
+  const breaks = crossings(loci, fixedIsT, x, a, b);
+  const scale = Math.max(1, Math.abs(a), Math.abs(b));
+  // A node that lands on a locus to rounding sees the singular value itself: a single point, worth nothing.
+  const onLocus = (y: number) => y <= a || y >= b || breaks.some((c) => Math.abs(y - c) <= 1e-13 * scale)
+    || Math.abs(y - x) <= 1e-13 * scale;
   const r = integrateAdaptiveArray((xs, outRe) => {
     const n = xs.length;
     const f = n <= fixed.length ? fixed.subarray(0, n) : new Float64Array(n);
@@ -38,8 +43,11 @@ function absLineIntegral(kernel: CompiledKernel, loci: readonly Locus[], fixedIs
     const kr = n <= re.length ? re.subarray(0, n) : new Float64Array(n);
     const ki = n <= im.length ? im.subarray(0, n) : new Float64Array(n);
     kernel.evaluateColumns(fixedIsT ? [f, xs] : [xs, f], kr, kernel.complex ? ki : null);
-    for (let i = 0; i < n; i++) outRe[i] = kernel.complex ? Math.hypot(kr[i], ki[i]) : Math.abs(kr[i]);
-  }, a, b, { breakpoints: crossings(loci, fixedIsT, x, a, b), relTol: 1e-7, absTol: 1e-13, maxEvaluations: 4_000, token });
+    for (let i = 0; i < n; i++) {
+      const v = kernel.complex ? Math.hypot(kr[i], ki[i]) : Math.abs(kr[i]);
+      outRe[i] = Number.isFinite(v) || !onLocus(xs[i]) ? v : 0;
+    }
+  }, a, b, { breakpoints: breaks, relTol: 1e-7, absTol: 1e-13, maxEvaluations: 4_000, token });
   return { value: r.value.re, error: r.error, ok: r.status !== 'nonFiniteValue' };
 }
 
