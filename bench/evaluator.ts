@@ -5,7 +5,8 @@
  *   (a) compiled: evaluateGrid on a 400 × 400 tensor grid of [0, 1]²;
  *   (b) mathjs: compile(formula) once, then .evaluate({ t, s }) per point, on a 100 × 100 grid (scaled per point);
  *   (c) hand-written: a plain double loop with Math.* calls (re and im by hand for the complex kernel).
- * Rates are points per second, the median of 15 timed repetitions after 5 warm-up runs (mathjs: 5 after 2).
+ * Rates are points per second, the median of 15 timed repetitions after 5 warm-up runs (mathjs: 7 after 10, its
+ * steady state: its rate keeps rising for the first few runs).
  * Targets: compiled ≥ 30× mathjs, hand-written ≤ 2× compiled. The last column is the largest difference between
  * the compiled and the hand-written values (they should agree to rounding).
  */
@@ -116,7 +117,7 @@ export async function run(): Promise<void> {
   const mts = grid(mathjsN);
   const mss = grid(mathjsN);
   const rows: string[][] = [['kernel', 'compiled grid', 'mathjs', 'hand-written', 'compiled/mathjs', 'hand/compiled', 'max |Δ|']];
-  let allMet = true;
+  const missed: string[] = [];
   for (const k of kernels) {
     const compiled = compileKernel(kernelIr(k.formula));
     const cRe = new Float64Array(n * n);
@@ -134,7 +135,7 @@ export async function run(): Promise<void> {
           sink += typeof v === 'number' ? v : v.re;
         }
       }
-    }, 2, 5);
+    }, 10, 7);
     if (!Number.isFinite(sink)) throw new Error('mathjs gave a non-finite value');
     let maxDiff = 0;
     for (let p = 0; p < n * n; p++) {
@@ -142,10 +143,11 @@ export async function run(): Promise<void> {
     }
     const vsMathjs = compiledRate / mathjsRate;
     const vsHand = handRate / compiledRate;
-    allMet &&= vsMathjs >= 30 && vsHand <= 2;
+    if (vsMathjs < 30) missed.push(`${k.name}: ${vsMathjs.toFixed(0)}× mathjs`);
+    if (vsHand > 2) missed.push(`${k.name}: hand-written ${vsHand.toFixed(2)}× faster`);
     rows.push([k.name, format(compiledRate), format(mathjsRate), format(handRate), `${vsMathjs.toFixed(0)}×`, `${vsHand.toFixed(2)}×`, maxDiff.toExponential(1)]);
   }
   const widths = rows[0].map((_, c) => Math.max(...rows.map((r) => r[c].length)));
   for (const r of rows) console.log(r.map((cell, c) => (c === 0 ? cell.padEnd(widths[c]) : cell.padStart(widths[c]))).join('  '));
-  console.log(`targets (compiled ≥ 30× mathjs, hand-written ≤ 2× compiled): ${allMet ? 'met' : 'NOT met'}`);
+  console.log(`targets (compiled ≥ 30× mathjs, hand-written ≤ 2× compiled): ${missed.length === 0 ? 'met' : `missed by ${missed.join(', ')}`}`);
 }

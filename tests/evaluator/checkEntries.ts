@@ -20,7 +20,8 @@ export function sameDouble(a: number, b: number): boolean {
 /** Evaluates `fn` at `args` through all entries (the grid only for two arguments: a 1×2 grid checks the layout). */
 export function runEntries(fn: IrFunction, args: readonly number[]): EntryValues {
   const interpreted = interpret(fn, args);
-  const compiled = fn.arity === 2 ? compileKernel(fn) : compileFunction(fn);
+  const kernel = fn.arity === 2 ? compileKernel(fn) : null;
+  const compiled = kernel ?? compileFunction(fn);
   const point = compiled.evaluate(args);
   const cols = args.map((x) => Float64Array.of(x, x));
   const outRe = new Float64Array(2);
@@ -28,14 +29,14 @@ export function runEntries(fn: IrFunction, args: readonly number[]): EntryValues
   compiled.evaluateColumns(cols, outRe, compiled.complex ? outIm : null);
   const columns = { re: outRe[1], im: compiled.complex ? outIm[1] : 0 };
   let grid: EntryValues['grid'] = null;
-  if (fn.arity === 2 && 'evaluateGrid' in compiled) {
+  if (kernel) {
     // A 2×2 grid whose entry (1, 0) is the point: checks the row-major layout too.
     const ts = Float64Array.of(NaN, args[0]);
     const ss = Float64Array.of(args[1], NaN);
     const gRe = new Float64Array(4);
     const gIm = new Float64Array(4);
-    compiled.evaluateGrid(ts, ss, gRe, compiled.complex ? gIm : null);
-    grid = { re: gRe[2], im: compiled.complex ? gIm[2] : 0 };
+    kernel.evaluateGrid(ts, ss, gRe, kernel.complex ? gIm : null);
+    grid = { re: gRe[2], im: kernel.complex ? gIm[2] : 0 };
   }
   return { interpreted, point, columns, grid };
 }

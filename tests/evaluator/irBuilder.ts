@@ -22,6 +22,9 @@ const opText: Record<string, string> = {
 };
 const constants: Record<string, [number, number]> = { i: [0, 1], pi: [Math.PI, 0], e: [Math.E, 0] };
 
+/** An IR node without its range (distributed over the union, so each variant keeps its own fields). */
+type BareNode = IrNode extends infer N ? (N extends IrNode ? Omit<N, 'range'> : never) : never;
+
 export interface TextIr {
   readonly fn: IrFunction;
   /** The canonical text the ranges point into. */
@@ -35,7 +38,7 @@ export function irFromText(formula: string, vars: readonly string[] = ['t', 's']
   let sawComplex = false;
   const lower = (node: MathNode, env: ReadonlyMap<string, number>): IrNode => {
     const start = text.length;
-    const done = (ir: Omit<IrNode, 'range'>): IrNode => ({ ...ir, range: { start, end: text.length } }) as IrNode;
+    const done = (ir: BareNode): IrNode => ({ ...ir, range: { start, end: text.length } }) as IrNode;
     const child = (n: MathNode, wrap: boolean): IrNode => {
       while (n.type === 'ParenthesisNode') n = (n as MathNode & { content: MathNode }).content;
       const needParens = wrap && (n.type === 'OperatorNode' || n.type === 'ConditionalNode');
@@ -75,7 +78,7 @@ export function irFromText(formula: string, vars: readonly string[] = ['t', 's']
         const a = child(args[0], true);
         text += ` ${opText[op]} `;
         const b = child(args[1], true);
-        return done({ op, a, b } as Omit<IrNode, 'range'>);
+        return done({ op, a, b } as BareNode);
       }
       case 'ConditionalNode': {
         const test = child(n.condition as MathNode, true);
@@ -126,7 +129,7 @@ export function findNode(root: IrNode, pred: (n: IrNode) => boolean): IrNode {
       n.op === 'neg' || n.op === 'not' ? [n.a] :
       n.op === 'call' ? [...n.args] :
       n.op === 'cond' ? [n.test, n.then, n.otherwise] :
-      n.op === 'let' ? [n.value, n.body] : [n.a, n.b];
+      n.op === 'let' ? [n.value, n.body] : [n.a, (n as { b: IrNode }).b];
     stack.push(...kids.reverse());
   }
   throw new Error('node not found');

@@ -14,7 +14,7 @@ import { irArb } from './randomIr';
 /** Written here, not imported: the names generated code may contain. */
 const allowedWords = new Set([
   // JavaScript
-  'function', 'const', 'let', 'for', 'if', 'else', 'return', 'NaN', 'Infinity', 'length',
+  'function', 'const', 'let', 'for', 'if', 'else', 'return', 'length',
   // entries and loops
   'point', 'columns', 'grid', 'a', 'res', 'c', 'outRe', 'outIm', 'n', 'k', 'ts', 'ss', 'nt', 'ns', 'p', 'q', 'base',
   // helpers (parameters of the generated function)

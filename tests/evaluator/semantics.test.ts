@@ -9,7 +9,7 @@
  */
 import { all, create } from 'mathjs';
 import { describe, expect, it } from 'vitest';
-import type { EvalFaultKind } from '../../src-core/semantics/evaluator';
+import { compileFunction, type EvalFaultKind } from '../../src-core/semantics/evaluator';
 import { entryDisagreement, runEntries } from './checkEntries';
 import { irFromText, sliceOf } from './irBuilder';
 
@@ -134,6 +134,27 @@ describe('the cases marked mathjs agree with mathjs', () => {
       const v = typeof raw === 'boolean' ? { re: Number(raw), im: 0 } : typeof raw === 'number' ? { re: raw, im: 0 } : (raw as { re: number; im: number });
       expect(close(v.re, c.value[0]), `mathjs re = ${v.re}`).toBe(true);
       expect(close(v.im, c.value[1]), `mathjs im = ${v.im}`).toBe(true);
+    });
+  }
+});
+
+describe('functions of other arities (compileFunction: evaluate and evaluateColumns)', () => {
+  const cases: { formula: string; vars: string[]; rows: number[][]; values: number[]; source: string }[] = [
+    { formula: '2 * pi', vars: [], rows: [[], []], values: [2 * Math.PI, 2 * Math.PI], source: 'IEEE' },
+    { formula: 'x ^ 2 - 1', vars: ['x'], rows: [[3], [-0.5]], values: [8, -0.75], source: 'IEEE' },
+    { formula: 'x * y + z', vars: ['x', 'y', 'z'], rows: [[2, 3, 4], [1, -1, 0.5]], values: [10, -0.5], source: 'IEEE' },
+  ];
+  for (const c of cases) {
+    it(`${c.formula} of (${c.vars.join(', ')})`, () => {
+      const { fn } = irFromText(c.formula, c.vars);
+      const compiled = compileFunction(fn);
+      expect(compiled.arity).toBe(c.vars.length);
+      expect(c.rows.map((r) => compiled.evaluate(r).re)).toEqual(c.values);
+      const columns = c.vars.map((_, k) => Float64Array.from(c.rows, (r) => r[k]));
+      const out = new Float64Array(c.rows.length);
+      compiled.evaluateColumns(columns, out, null);
+      expect(Array.from(out)).toEqual(c.values);
+      if (c.vars.length > 0) expect(() => compiled.evaluate(new Array(c.vars.length - 1).fill(0))).toThrow(RangeError);
     });
   }
 });

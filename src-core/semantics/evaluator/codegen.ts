@@ -103,14 +103,15 @@ type ColumnsFn = (c: readonly Float64Array[], outRe: Float64Array, outIm: Float6
 type GridFn = (ts: Float64Array, ss: Float64Array, outRe: Float64Array, outIm: Float64Array | null) => void;
 
 function instantiate(generated: GeneratedSource): [PointFn, ColumnsFn, GridFn | null] {
-  // eslint-disable-next-line @typescript-eslint/no-implied-eval -- the source is built from fixed text and numbers only
+  // The source is built from fixed text, numeric literals and generated names only (see the header).
   const factory = new Function(...generated.parameters, generated.source) as (...helpers: unknown[]) => [PointFn, ColumnsFn, GridFn | null];
   return factory(...helperTable.map(([, value]) => value));
 }
 
+/** The outputs hold `length` values (outIm too, on the complex path). */
 function checkOut(complex: boolean, outRe: Float64Array, outIm: Float64Array | null, length: number): void {
   if (outRe.length < length) throw new RangeError(`outRe has ${outRe.length} entries, ${length} needed`);
-  if (complex && (outIm === null || outIm.length < outRe.length)) throw new RangeError('outIm must be as long as outRe');
+  if (complex && (outIm === null || outIm.length < length)) throw new RangeError(`outIm must hold ${length} entries`);
 }
 
 function build(fn: IrFunction): CompiledKernel | CompiledFunction {
@@ -140,9 +141,7 @@ function build(fn: IrFunction): CompiledKernel | CompiledFunction {
   return {
     ...compiled,
     evaluateGrid(ts: Float64Array, ss: Float64Array, outRe: Float64Array, outIm: Float64Array | null): void {
-      const size = ts.length * ss.length;
-      checkOut(complex, outRe, outIm, size);
-      if (complex && outIm!.length < size) throw new RangeError('outIm is too short');
+      checkOut(complex, outRe, outIm, ts.length * ss.length);
       grid(ts, ss, outRe, outIm);
     },
   };

@@ -9,16 +9,17 @@
  * Nothing from the user's source text (names, strings) is ever copied.
  *
  * Optimizations: subtrees without arguments are folded (evaluated once by the interpreter, emitted as literals); a
- * conditional with a constant test keeps only its branch; a `let` binds its slot to its value's SSA name; an
- * untaken branch is not evaluated (if/else blocks, up to 48 deep); real-typed values (irShape.ts) have no
- * imaginary variable.
+ * conditional with a constant test keeps only its branch, and one whose test is a real comparison branches on the
+ * comparison itself; a `let` binds its slot to its value's SSA name; an untaken branch is not evaluated (if/else
+ * blocks, up to 48 deep); real-typed values (irShape.ts) have no imaginary variable; NaN and ∞ are written as
+ * 0/0 and 1/0 (see logicOps.ts).
  */
 import type { IrNode } from '../ir';
 import { evaluateTree, type SlotValues } from './interpret';
 import { childrenOf, internalError, isSquareExponent, type IrShape } from './irShape';
 import {
-  compareRealCode, isCompareOp, logicAndCode, logicNotCode, logicOrCode, truthComplex, truthComplexCode, truthReal,
-  truthRealCode,
+  compareConditionCode, compareRealCode, infinityCode, isCompareOp, logicAndCode, logicNotCode, logicOrCode, nanCode,
+  truthComplex, truthComplexCode, truthReal, truthRealCode, type CompareOp,
 } from './logicOps';
 
 /** A value in generated code: its real part and its imaginary part (null when real-typed). */
@@ -27,6 +28,8 @@ export interface Operand {
   readonly im: string | null;
   /** Known value, when the operand is a compile-time constant. */
   readonly value?: { re: number; im: number };
+  /** A comparison left unevaluated for the conditional it tests (its `re` must not be used). */
+  readonly compare?: { op: CompareOp; a: string; b: string };
 }
 
 export interface EmittedBody {
@@ -37,9 +40,9 @@ export interface EmittedBody {
 /** Serializes a double as JavaScript source; the only way numbers enter generated code. */
 export function numberLiteral(x: number): string {
   if (typeof x !== 'number') throw internalError('literal is not a number');
-  if (x !== x) return 'NaN';
-  if (x === Infinity) return 'Infinity';
-  if (x === -Infinity) return '(-Infinity)';
+  if (x !== x) return nanCode;
+  if (x === Infinity) return infinityCode;
+  if (x === -Infinity) return `(-${infinityCode})`;
   if (Object.is(x, -0)) return '(-0)';
   const text = String(Math.abs(x));
   if (!/^\d+(\.\d+)?(e[+-]\d+)?$/.test(text) || Number(text) !== Math.abs(x)) throw internalError(`bad literal ${text}`);
@@ -85,6 +88,8 @@ export function emitBody(shape: IrShape, argNames: readonly string[]): EmittedBo
     origin: new Array(shape.fn.slotCount).fill(null),
   };
   const isReal = (n: IrNode): boolean => shape.nodes.get(n)!.realTyped;
+  /** Comparisons whose only use is as a conditional's test (see emitCondStep). */
+  const fusedTests = new Set<IrNode>();
   const literal = (n: IrNode, re: number, im: number): Operand =>
     isReal(n) ? { re: numberLiteral(re), im: null, value: { re, im: 0 } } : { re: numberLiteral(re), im: numberLiteral(im), value: { re, im } };
   const define = (re: string, im: string | null): Operand => {
@@ -107,7 +112,7 @@ export function emitBody(shape: IrShape, argNames: readonly string[]): EmittedBo
   };
 
   const stack: Frame[] = [];
-  let last: Operand = { re: 'NaN', im: null };
+  let last: Operand = { re: nanCode, im: null };
   const push = (node: IrNode): void => {
     const info = shape.nodes.get(node);
     if (!info) throw internalError('node missing from shape');
@@ -168,68 +173,83 @@ export function emitBody(shape: IrShape, argNames: readonly string[]): EmittedBo
    * Advances a conditional; returns false when it is finished (its value is in `last`). Up to maxBlockDepth nested
    * conditionals become if/else blocks (only the taken branch runs); deeper ones evaluate both branches and pick
    * with a ternary, because JavaScript parsers recurse on nested blocks. The value is the same either way: branches
-   * have no side effects, and NaN or ∞ in the untaken branch is simply not picked.
+   * have no side effects, and NaN or ∞ in the untaken branch is simply not picked. A test that is a comparison of
+   * real values is fused into the branch conditions (`if (t < s) … else if (t >= s) … else NaN`).
    */
   function emitCondStep(f: Frame): boolean {
     const node = f.node as Extract<IrNode, { op: 'cond' }>;
     const resultReal = isReal(node);
     const asResult = (v: Operand): Operand => (resultReal || v.im !== null ? v : { re: v.re, im: '0' });
-    const nan: Operand = resultReal ? { re: 'NaN', im: null } : { re: 'NaN', im: 'NaN' };
+    const nan: Operand = resultReal ? { re: nanCode, im: null } : { re: nanCode, im: nanCode };
     if (f.step === 1) {
+      if (isCompareOp(node.test.op) && childrenOf(node.test).every(isReal)) fusedTests.add(node.test);
       push(node.test);
       return true;
     }
     const t = f.operands[0];
-    const isZero = t.im === null ? `${t.re} === 0` : `${t.re} === 0 && ${t.im} === 0`;
-    const notNaN = t.im === null ? `${t.re} === ${t.re}` : `${t.re} === ${t.re} && ${t.im} === ${t.im}`;
-    if (f.step === 2) {
-      if (t.value) {
-        const truth = t.im === null ? truthReal(t.value.re) : truthComplex(t.value.re, t.value.im);
-        if (truth !== truth) {
-          last = nan;
-          return false;
-        }
-        f.picked = truth !== 0 ? node.then : node.otherwise;
-        push(f.picked);
-        return true;
+    if (f.step === 2 && t.value) {
+      const truth = t.im === null ? truthReal(t.value.re) : truthComplex(t.value.re, t.value.im);
+      if (truth !== truth) {
+        last = nan;
+        return false;
       }
-      f.eager = depth >= maxBlockDepth;
-      if (!f.eager) {
-        const id = counter++;
-        f.target = resultReal ? { re: `r${id}`, im: null } : { re: `r${id}`, im: `i${id}` };
-        emit(resultReal ? `let r${id};` : `let r${id}, i${id};`);
-        emit(`if (${isZero}) {`);
-        depth++;
-      }
-      push(node.otherwise);
+      f.picked = truth !== 0 ? node.then : node.otherwise;
+      push(f.picked);
       return true;
     }
     if (f.picked !== undefined) {
       last = asResult(f.operands[1]);
       return false;
     }
+    // Branch conditions: `first` holds → first branch; else `second` holds → second branch; else NaN.
+    let first: string;
+    let second: string;
+    let firstBranch: IrNode;
+    let secondBranch: IrNode;
+    if (t.compare) {
+      const c = compareConditionCode(t.compare.op, t.compare.a, t.compare.b);
+      [first, second, firstBranch, secondBranch] = [c.whenTrue, c.whenFalse, node.then, node.otherwise];
+    } else {
+      first = t.im === null ? `${t.re} === 0` : `${t.re} === 0 && ${t.im} === 0`;
+      second = t.im === null ? `${t.re} === ${t.re}` : `${t.re} === ${t.re} && ${t.im} === ${t.im}`;
+      [firstBranch, secondBranch] = [node.otherwise, node.then];
+    }
+    if (f.step === 2) {
+      f.eager = depth >= maxBlockDepth;
+      if (!f.eager) {
+        const id = counter++;
+        f.target = resultReal ? { re: `r${id}`, im: null } : { re: `r${id}`, im: `i${id}` };
+        emit(resultReal ? `let r${id};` : `let r${id}, i${id};`);
+        emit(`if (${first}) {`);
+        depth++;
+      }
+      push(firstBranch);
+      return true;
+    }
     if (f.step === 3) {
       if (!f.eager) {
         assignTo(f.target!, asResult(f.operands[1]));
         depth--;
-        emit(`} else if (${notNaN}) {`);
+        emit(`} else if (${second}) {`);
         depth++;
       }
-      push(node.then);
+      push(secondBranch);
       return true;
     }
-    const otherwise = asResult(f.operands[1]);
-    const then = asResult(f.operands[2]);
+    const firstValue = asResult(f.operands[1]);
+    const secondValue = asResult(f.operands[2]);
     if (f.eager) {
-      const pick = (part: (v: Operand) => string): string => `${isZero} ? ${part(otherwise)} : ${notNaN} ? ${part(then)} : NaN`;
+      const pick = (part: (v: Operand) => string): string => `${first} ? ${part(firstValue)} : ${second} ? ${part(secondValue)} : ${nanCode}`;
       last = define(pick((v) => v.re), resultReal ? null : pick((v) => v.im!));
       return false;
     }
     const target = f.target!;
-    assignTo(target, then);
+    assignTo(target, secondValue);
     depth--;
     emit('} else {');
+    depth++;
     assignTo(target, nan);
+    depth--;
     emit('}');
     last = target;
     return false;
@@ -267,6 +287,7 @@ export function emitBody(shape: IrShape, argNames: readonly string[]): EmittedBo
         return emitCall(node, v);
       default:
         if (isCompareOp(node.op)) {
+          if (fusedTests.delete(node)) return { re: nanCode, im: null, compare: { op: node.op, a: a.re, b: b.re } };
           const cmp = compareRealCode(node.op, a.re, b.re);
           return define(complexGuard(v, cmp), null);
         }
@@ -277,7 +298,7 @@ export function emitBody(shape: IrShape, argNames: readonly string[]): EmittedBo
   /** `value`, or NaN when some complex-typed operand has a non-zero imaginary part. */
   function complexGuard(v: Operand[], value: string): string {
     const tests = v.filter((o) => o.im !== null).map((o) => `${o.im} !== 0`);
-    return tests.length === 0 ? value : `(${tests.join(' || ')} ? NaN : ${value})`;
+    return tests.length === 0 ? value : `(${tests.join(' || ')} ? ${nanCode} : ${value})`;
   }
 
   function emitCall(node: Extract<IrNode, { op: 'call' }>, v: Operand[]): Operand {
