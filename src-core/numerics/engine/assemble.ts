@@ -54,6 +54,22 @@ function unitBasis(unit: UnitPairRule, degree: number): { bx: Float64Array; by: 
   return b;
 }
 
+const mirrors = new WeakMap<UnitPairRule, UnitPairRule>();
+
+/** The rule of pair (Q, P) turned into a rule of pair (P, Q): t and s exchange roles. */
+function mirrored(rule: PairRule): PairRule {
+  if ('tensor' in rule) {
+    const { tNodes, tWeights, sNodes, sWeights } = rule.tensor;
+    return { tensor: { tNodes: sNodes, tWeights: sWeights, sNodes: tNodes, sWeights: tWeights } };
+  }
+  let unit = mirrors.get(rule.unit);
+  if (!unit) {
+    unit = { x: rule.unit.y, y: rule.unit.x, w: rule.unit.w, nearSingular: rule.unit.nearSingular };
+    mirrors.set(rule.unit, unit);
+  }
+  return { unit, t0: rule.s0, s0: rule.t0, ht: rule.hs, hs: rule.ht };
+}
+
 export function basisSize(d: Discretisation): number {
   return (d.breakpoints.length - 1) * (d.degree + 1);
 }
@@ -88,8 +104,13 @@ export function assembleGalerkin(
   for (let P = 0; P < panels; P++) {
     throwIfCancelled(token);
     for (let Q = 0; Q < panels; Q++) {
-      const rule: PairRule = pairRule(d.breakpoints[P], d.breakpoints[P + 1], d.breakpoints[Q], d.breakpoints[Q + 1], oblique,
-        { order: d.order, singularLevels: d.singularLevels, gradedPoints: d.gradedPoints });
+      // Below the diagonal, use the mirror image of the rule above it, so that a Hermitian kernel gives a Galerkin
+      // matrix that is Hermitian to rounding, whatever the quadrature error.
+      const rule: PairRule = P <= Q
+        ? pairRule(d.breakpoints[P], d.breakpoints[P + 1], d.breakpoints[Q], d.breakpoints[Q + 1], oblique,
+          { order: d.order, singularLevels: d.singularLevels, gradedPoints: d.gradedPoints })
+        : mirrored(pairRule(d.breakpoints[Q], d.breakpoints[Q + 1], d.breakpoints[P], d.breakpoints[P + 1], oblique,
+          { order: d.order, singularLevels: d.singularLevels, gradedPoints: d.gradedPoints }));
       local.fill(0);
       localIm.fill(0);
       if ('tensor' in rule) {

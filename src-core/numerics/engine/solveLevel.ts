@@ -34,8 +34,11 @@ export interface LevelSolution {
   readonly converged: boolean;
 }
 
-/** Matrices whose Hermitian defect is below this are solved as Hermitian. */
-export const hermitianDefectThreshold = 1e-9;
+/**
+ * Matrices whose Hermitian defect is below this are solved as Hermitian. The assembly mirrors its quadrature across
+ * the diagonal, so a Hermitian kernel gives a defect at rounding level (about 1e-16), whatever the quadrature error.
+ */
+export const hermitianDefectThreshold = 1e-11;
 
 function column(vectors: Float64Array, n: number, k: number): Float64Array {
   const v = new Float64Array(n);
