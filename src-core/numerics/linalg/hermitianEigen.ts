@@ -1,30 +1,31 @@
 /**
- * All eigenvalues and eigenvectors of a complex Hermitian matrix through its real symmetric embedding.
+ * All eigenvalues and eigenvectors of a complex Hermitian matrix, directly in complex arithmetic.
  *
- * Method: A = R + iS is Hermitian exactly when M = [[R, −S], [S, R]] (2n×2n) is real symmetric. If A z = λ z with
- * z = x + iy then M [x; y] = λ [x; y] and M [−y; x] = λ [−y; x], so every eigenvalue of A appears twice in M, and an
- * eigenspace of A of dimension m corresponds to an eigenspace of M of dimension 2m that is closed under
- * J = [[0, −I], [I, 0]] (multiplication by i). M is the standard real form of the complex matrix A; the symmetric
- * solver underneath is Golub & Van Loan, Matrix Computations, 4th ed. 2013, §8.3.
+ * Method: the scheme of LAPACK ZHEEV (Anderson et al., LAPACK Users' Guide, 3rd ed. 1999, §2.4.4: ZHETRD, ZUNGTR,
+ * ZSTEQR), with the tridiagonal stage of Golub & Van Loan, Matrix Computations, 4th ed. 2013, §8.3:
  *
- * M is solved by Householder tridiagonalization and implicit QL (symmetricTridiagonalQl). Its eigenvalues, sorted,
- * are grouped into clusters whose consecutive gaps are below a tolerance (max(1e-12, 64nε)·‖A‖₂, far above the
- * ~1e-14·‖A‖₂ by which the two copies of an eigenvalue differ in practice), always of even size; a cluster of 2m values yields m
- * eigenvalues of A, the means of consecutive pairs. An orthonormal complex basis of each cluster's eigenspace,
- * orthogonal to the earlier clusters, is extracted by complexClusterBasis (complex Gram–Schmidt with pivoting). This
- * handles repeated eigenvalues, where taking every other eigenvector of M would not, and restores the complex
- * orthogonality between clusters that real orthogonality in R²ⁿ does not give. Within a cluster of distinct but
- * closer-than-tolerance eigenvalues the vectors are a basis of the cluster's invariant subspace, so their residuals
- * are bounded by the cluster's width.
+ *  1. A = U T Uᴴ with U unitary and T real symmetric tridiagonal: complex Householder reduction, then a diagonal
+ *     unitary scaling that makes the off-diagonal real (hermitianTridiagonal);
+ *  2. T = Z Λ Zᵀ by the implicit QL algorithm (tridiagonalQl in symmetricTridiagonalQl); its real plane rotations are
+ *     applied straight to the columns of U, real and imaginary parts alike, so the result is V = U Z;
+ *  3. the columns of V are the eigenvectors, sorted by descending eigenvalue and phase-normalized.
+ *
+ * Every step is a unitary similarity, so the eigenvalues are accurate to O(ε‖A‖₂) and V is unitary to O(nε)
+ * whatever the spacing of the eigenvalues: repeated and clustered eigenvalues need no special handling, and each
+ * eigenvalue of A is found once. (The older route through the real symmetric embedding [[Re A, −Im A], [Im A, Re A]]
+ * of order 2n, kept as a test reference in hermitianEigenEmbedding.ts, did about four times the work and had to
+ * pair up the doubled eigenvalues.)
  *
  * Output: values descending; vectorsRe/vectorsIm n×n row-major with column k the unit eigenvector of values[k]. Each
  * eigenvector's phase is fixed so that its entry of largest modulus is real and positive. The input is first
- * replaced by its Hermitian part (A + Aᴴ)/2.
+ * replaced by its Hermitian part (A + Aᴴ)/2. A real input (im null or all zero) takes the real symmetric route
+ * (symmetricTridiagonalQl) and returns an all-zero vectorsIm.
  */
 
 import { checkSquareComplex, isRealPart } from './dense';
-import { appendClusterBasis } from './complexClusterBasis';
-import { symmetricTridiagonalQl } from './symmetricTridiagonalQl';
+import { writePhasedColumn } from './eigenvectorPhase';
+import { hermitianTridiagonalize } from './hermitianTridiagonal';
+import { symmetricTridiagonalQl, tridiagonalQl } from './symmetricTridiagonalQl';
 
 export interface HermitianEigen {
   /** Eigenvalues, descending by value; each eigenvalue of A listed as often as its multiplicity. */
@@ -35,79 +36,20 @@ export interface HermitianEigen {
   vectorsIm: Float64Array;
 }
 
-const EPS = 2 ** -52;
-
 export function hermitianEigen(re: Float64Array, im: Float64Array | null, n: number): HermitianEigen {
   checkSquareComplex('hermitianEigen', re, im, n);
   if (isRealPart(im)) return realSymmetricCase(re, n);
 
-  const big = 2 * n;
-  const m = new Float64Array(big * big);
-  for (let i = 0; i < n; i++) {
-    for (let j = 0; j < n; j++) {
-      const r = 0.5 * (re[i * n + j] + re[j * n + i]);
-      const s = 0.5 * ((im as Float64Array)[i * n + j] - (im as Float64Array)[j * n + i]);
-      m[i * big + j] = r;
-      m[(i + n) * big + j + n] = r;
-      m[(i + n) * big + j] = s;
-      m[i * big + j + n] = -s;
-    }
-  }
-  const eig = symmetricTridiagonalQl(m, big);
-  const w = eig.values;
-  const scale = Math.max(Math.abs(w[0]), Math.abs(w[big - 1]));
-  const tol = Math.max(1e-12, 32 * big * EPS) * scale;
-
-  const values = new Float64Array(n);
-  // Row k of (rowsRe, rowsIm) is eigenvector k while the basis is being built.
-  const rowsRe = new Float64Array(n * n);
-  const rowsIm = new Float64Array(n * n);
-  let out = 0;
-  let start = 0;
-  while (start < big) {
-    let end = start + 1;
-    // Extend while the gap is small, and always to an even size: the two copies of an eigenvalue belong together.
-    while (end < big && (w[end - 1] - w[end] <= tol || (end - start) % 2 === 1)) end++;
-    const next = appendClusterBasis(eig.vectorRows, start, end, n, rowsRe, rowsIm, out);
-    for (let j = 0; j < next - out; j++) values[out + j] = 0.5 * (w[start + 2 * j] + w[start + 2 * j + 1]);
-    out = next;
-    start = end;
-  }
+  const tri = hermitianTridiagonalize(re, im as Float64Array, n);
+  const eig = tridiagonalQl(tri.d, tri.e, tri.columns, n, 2 * n);
   const vectorsRe = new Float64Array(n * n);
   const vectorsIm = new Float64Array(n * n);
+  const rows = eig.vectorRows; // row k: [Re v_k, Im v_k]
   for (let k = 0; k < n; k++) {
-    writeColumn(rowsRe.subarray(k * n, k * n + n), rowsIm.subarray(k * n, k * n + n), n, k, vectorsRe, vectorsIm);
+    const base = 2 * n * k;
+    writePhasedColumn(rows.subarray(base, base + n), rows.subarray(base + n, base + 2 * n), n, k, vectorsRe, vectorsIm);
   }
-  return { values, vectorsRe, vectorsIm };
-}
-
-/** Writes x + iy to column k, rotating its phase so that the entry of largest modulus is real and positive. */
-function writeColumn(
-  x: Float64Array,
-  y: Float64Array,
-  n: number,
-  k: number,
-  vectorsRe: Float64Array,
-  vectorsIm: Float64Array,
-): void {
-  let bigI = 0;
-  let big2 = -1;
-  for (let i = 0; i < n; i++) {
-    const m2 = x[i] * x[i] + y[i] * y[i];
-    if (m2 > big2) {
-      big2 = m2;
-      bigI = i;
-    }
-  }
-  const mod = Math.sqrt(big2);
-  // Multiply by conj(z_big)/|z_big|.
-  const cr = mod > 0 ? x[bigI] / mod : 1;
-  const ci = mod > 0 ? -y[bigI] / mod : 0;
-  for (let i = 0; i < n; i++) {
-    vectorsRe[i * n + k] = x[i] * cr - y[i] * ci;
-    vectorsIm[i * n + k] = x[i] * ci + y[i] * cr;
-  }
-  vectorsIm[bigI * n + k] = 0;
+  return { values: eig.values, vectorsRe, vectorsIm };
 }
 
 function realSymmetricCase(re: Float64Array, n: number): HermitianEigen {
@@ -120,7 +62,7 @@ function realSymmetricCase(re: Float64Array, n: number): HermitianEigen {
   const vectorsIm = new Float64Array(n * n);
   const zero = new Float64Array(n);
   for (let k = 0; k < n; k++) {
-    writeColumn(eig.vectorRows.subarray(k * n, k * n + n), zero, n, k, vectorsRe, vectorsIm);
+    writePhasedColumn(eig.vectorRows.subarray(k * n, k * n + n), zero, n, k, vectorsRe, vectorsIm);
   }
   return { values: eig.values, vectorsRe, vectorsIm };
 }

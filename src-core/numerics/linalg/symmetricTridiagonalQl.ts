@@ -6,10 +6,13 @@
  * procedures tred2 (Martin, Reinsch & Wilkinson) and tql2 (Bowdler, Martin, Reinsch & Wilkinson) of the Handbook for
  * Automatic Computation vol. II, Linear Algebra (1971), as published in EISPACK and JAMA.
  *
- * This is a flat Float64Array version for the hot paths (the 2n×2n real embedding of a Hermitian matrix). The
- * eigenvector matrix is stored transposed while it is built, so that every inner loop runs along contiguous memory;
- * on return row k of `vectorRows` is eigenvector k. Unlike the published tql2 the QL sweeps are bounded: an
- * eigenvalue that needs more than MAX_SWEEPS sweeps is accepted as it stands and `converged` is set to false.
+ * This is a flat Float64Array version for the hot paths (the Lanczos solver, the reference embedding of a Hermitian
+ * matrix). The eigenvector matrix is stored transposed while it is built, so that every inner loop runs along
+ * contiguous memory; on return row k of `vectorRows` is eigenvector k. Unlike the published tql2 the QL sweeps are
+ * bounded: an eigenvalue that needs more than MAX_SWEEPS sweeps is accepted as it stands and `converged` is set to
+ * false. The QL stage is also exported alone (`tridiagonalQl`) for a caller that reduces its matrix to tridiagonal
+ * form itself and brings its own starting transform, with rows of any length (the complex Hermitian solver keeps
+ * the real and imaginary parts of a complex vector side by side in one row; the rotations are real).
  */
 
 import { hypot2 } from './dense';
@@ -20,7 +23,7 @@ const EPS = 2 ** -52;
 export interface SymmetricEigenRows {
   /** Eigenvalues in descending order. */
   values: Float64Array;
-  /** n×n row-major; row k is the unit eigenvector of values[k]. */
+  /** n×n row-major; row k is the unit eigenvector of values[k] (n rows of rowLength from tridiagonalQl). */
   vectorRows: Float64Array;
   /** False when some QL sweep hit the iteration bound (the values are then less accurate). */
   converged: boolean;
@@ -37,7 +40,26 @@ export function symmetricTridiagonalQl(a: Float64Array, n: number): SymmetricEig
   const e = new Float64Array(n);
   tridiagonalize(w, d, e, n);
   const converged = implicitQl(w, d, e, n);
-  return sortDescending(w, d, n, converged);
+  return sortDescending(w, d, n, converged, n);
+}
+
+/**
+ * The implicit QL stage alone, on the real symmetric tridiagonal matrix T with diagonal `d` (length n) and
+ * subdiagonal e[i] = T(i, i−1) for i = 1..n−1 (e[0] is ignored); `d` and `e` are overwritten. `rows` holds n rows of
+ * length `rowLength` (≥ 1), row c being column c of a starting transform U (in whatever real coordinates the caller
+ * chooses); every plane rotation of the QL sweeps is applied to it, so that on return row k of `vectorRows` is U
+ * times the eigenvector of T for values[k]. With U = I and rowLength = n these are the eigenvectors of T. `rows` is
+ * used as workspace.
+ */
+export function tridiagonalQl(
+  d: Float64Array,
+  e: Float64Array,
+  rows: Float64Array,
+  n: number,
+  rowLength: number,
+): SymmetricEigenRows {
+  const converged = implicitQl(rows, d, e, n, rowLength);
+  return sortDescending(rows, d, n, converged, rowLength);
 }
 
 /** tred2: on return d is the diagonal, e[1..n-1] the subdiagonal, and w (transposed) the accumulated transform. */
@@ -122,8 +144,11 @@ function tridiagonalize(w: Float64Array, d: Float64Array, e: Float64Array, n: nu
   e[0] = 0;
 }
 
-/** tql2 with a sweep bound; returns false if some eigenvalue did not converge within MAX_SWEEPS sweeps. */
-function implicitQl(w: Float64Array, d: Float64Array, e: Float64Array, n: number): boolean {
+/**
+ * tql2 with a sweep bound; returns false if some eigenvalue did not converge within MAX_SWEEPS sweeps. The rotations
+ * act on the rows of w, each `len` long (n for the eigenvectors themselves).
+ */
+function implicitQl(w: Float64Array, d: Float64Array, e: Float64Array, n: number, len: number = n): boolean {
   let converged = true;
   for (let i = 1; i < n; i++) e[i - 1] = e[i];
   e[n - 1] = 0;
@@ -169,9 +194,9 @@ function implicitQl(w: Float64Array, d: Float64Array, e: Float64Array, n: number
           c = p / r;
           p = c * d[i] - s * g;
           d[i + 1] = h + s * (c * g + s * d[i]);
-          const ci = i * n;
-          const ci1 = ci + n;
-          for (let k = 0; k < n; k++) {
+          const ci = i * len;
+          const ci1 = ci + len;
+          for (let k = 0; k < len; k++) {
             const hk = w[ci1 + k];
             const vk = w[ci + k];
             w[ci1 + k] = s * vk + c * hk;
@@ -189,14 +214,20 @@ function implicitQl(w: Float64Array, d: Float64Array, e: Float64Array, n: number
   return converged;
 }
 
-function sortDescending(w: Float64Array, d: Float64Array, n: number, converged: boolean): SymmetricEigenRows {
+function sortDescending(
+  w: Float64Array,
+  d: Float64Array,
+  n: number,
+  converged: boolean,
+  len: number,
+): SymmetricEigenRows {
   const order = Array.from({ length: n }, (_, i) => i).sort((x, y) => d[y] - d[x]);
   const values = new Float64Array(n);
-  const vectorRows = new Float64Array(n * n);
+  const vectorRows = new Float64Array(n * len);
   for (let k = 0; k < n; k++) {
     const src = order[k];
     values[k] = d[src];
-    vectorRows.set(w.subarray(src * n, src * n + n), k * n);
+    vectorRows.set(w.subarray(src * len, src * len + len), k * len);
   }
   return { values, vectorRows, converged };
 }
