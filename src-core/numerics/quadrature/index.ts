@@ -2,7 +2,8 @@
 export type { Rule1D, Rule2D, Vec2, ComplexNumber } from './types';
 export { QuadratureInputError } from './types';
 export { gaussLegendre, mapRule, GAUSS_LEGENDRE_MAX_POINTS } from './gaussLegendre';
-export { gaussJacobi, jacobiWeightIntegral, GAUSS_JACOBI_MAX_POINTS } from './gaussJacobi';
+// gaussJacobi (./gaussJacobi.ts) is imported directly where needed: it loads mathjs for Γ, which the analysis path
+// must not pay for at start-up.
 export { legendreMatrix, legendreDerivative, panelBasis, panelBasisDerivative } from './legendreBasis';
 export { compositeRule } from './compositeRule';
 export {

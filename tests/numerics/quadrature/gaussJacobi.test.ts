@@ -1,11 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { gamma } from 'mathjs';
-import {
-  gaussJacobi,
-  gaussLegendre,
-  jacobiWeightIntegral,
-  QuadratureInputError,
-} from '../../../src-core/numerics/quadrature/index';
+import { gaussLegendre, QuadratureInputError } from '../../../src-core/numerics/quadrature/index';
+import { gaussJacobi, jacobiWeightIntegral } from '../../../src-core/numerics/quadrature/gaussJacobi';
 
 const betaFn = (p: number, q: number): number => (gamma(p) * gamma(q)) / gamma(p + q);
 
