@@ -10,6 +10,7 @@ import type { CancellationToken } from '../util/cancellation';
 import { defaultAnalysisOptions, type AnalysisOptions, type FileAnalysis, type KernelReport } from './types';
 import { faultDiagnostics } from './faults';
 import { analyzeKernelNumerics } from './kernelAnalysis';
+import { runChecks } from '../checks';
 
 export function compareDiagnostics(a: Diagnostic, b: Diagnostic): number {
   return a.range.start - b.range.start || a.range.end - b.range.end || a.code.localeCompare(b.code);
@@ -43,8 +44,25 @@ export function analyzeText(
       kernels.push(base);
       continue;
     }
-    diagnostics.push(...numerics.diagnostics);
-    kernels.push({ ...base, spectrum: numerics.spectrum });
+    const checks = runChecks(k, text, numerics.result, numerics.spectrum, opts, token);
+    if (!checks) {
+      diagnostics.push(...numerics.diagnostics);
+      kernels.push({ ...base, spectrum: numerics.spectrum });
+      continue;
+    }
+    // An unbounded operator has no spectrum: the boundedness finding (or the failed claim) says why, and notes
+    // about the engine's figures (no spectrum, accuracy, method cross-check) would only describe numbers not shown.
+    diagnostics.push(...(checks.unbounded ? [] : numerics.diagnostics), ...checks.diagnostics);
+    kernels.push({
+      ...base,
+      spectrum: checks.spectrum,
+      hermitian: checks.hermitian,
+      boundedness: checks.boundedness,
+      continuity: checks.continuity,
+      positive: checks.positive,
+      effectiveRank: checks.effectiveRank,
+      resolvent: checks.resolvent,
+    });
   }
   diagnostics.sort(compareDiagnostics);
   return { source, model, diagnostics, kernels };
@@ -59,5 +77,11 @@ export function baseReport(k: KernelSymbol): KernelReport {
     complex: k.ir?.complex ?? false,
     hash: k.hash,
     spectrum: null,
+    hermitian: null,
+    boundedness: null,
+    continuity: null,
+    positive: null,
+    effectiveRank: null,
+    resolvent: [],
   };
 }

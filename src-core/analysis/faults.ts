@@ -3,12 +3,20 @@
  * number in a real kernel), a complex value where a real one is needed, and values that are NaN or infinite.
  * Domain faults block the numerical analysis of that kernel; NaN or infinite values (often on a line such as the
  * diagonal of a singular kernel) do not: the spectral engine judges whether they matter.
+ *
+ * A NaN or infinite value at a point of a singular locus of the expression (log(abs(t − s)) at t = s, 1/(t + s) at
+ * the corner) is not reported: that is the singularity itself, and the boundedness check says whether it is
+ * integrable. The loci are the engine's (loci.ts): straight lines exactly, other curves where the expression whose
+ * zero set they are vanishes at the point.
  */
 import type { Diagnostic } from '../diagnostics/types';
 import { makeDiagnostic } from '../diagnostics/make';
 import { compileKernel, probeFaults, type KernelFault } from '../semantics/evaluator';
 import type { KernelSymbol } from '../semantics/model';
 import { formatComplex, formatNumber } from '../semantics/values';
+import { findLoci } from '../numerics/engine/loci';
+import { mayBeComplex } from '../semantics/lower';
+import { slotCountOf } from '../semantics/irTools';
 
 export interface FaultResult {
   readonly diagnostics: Diagnostic[];
@@ -17,10 +25,29 @@ export interface FaultResult {
   readonly faults: readonly KernelFault[];
 }
 
-export function faultDiagnostics(k: KernelSymbol): FaultResult {
+/** A test for points that lie on a singular locus of the kernel's expression. */
+export function onSingularLocus(k: KernelSymbol): (t: number, s: number) => boolean {
+  if (!k.ir || !k.domain) return () => false;
+  const { a, b } = k.domain;
+  const loci = findLoci(k.ir, [a, b]);
+  const scale = Math.max(1, Math.abs(a), Math.abs(b));
+  const lines = loci.loci.filter((l) => l.kind === 'singular').map((l) => l.line);
+  const curves = loci.unknown.filter((u) => u.kind === 'singular' && u.node.op !== 'const').map((u) => {
+    const slots = slotCountOf(u.node);
+    return compileKernel({ root: u.node, arity: 2, slotCount: slots, complex: mayBeComplex(u.node, slots) });
+  });
+  return (t, s) => lines.some((l) => Math.abs(l.ct * t + l.cs * s + l.c0) <= 1e-12 * scale)
+    || curves.some((g) => {
+      const v = g.evaluate([t, s]);
+      return Math.hypot(v.re, v.im) <= 1e-12 * scale;
+    });
+}
+
+export function faultDiagnostics(k: KernelSymbol, skip: (t: number, s: number) => boolean = onSingularLocus(k)): FaultResult {
   if (!k.ir || !k.domain) return { diagnostics: [], blocking: false, faults: [] };
   const compiled = compileKernel(k.ir);
-  const faults = probeFaults(k.ir, compiled, k.domain.a, k.domain.b);
+  const faults = probeFaults(k.ir, compiled, k.domain.a, k.domain.b)
+    .filter((f) => f.fault.kind !== 'non-finite' || !skip(f.t, f.s));
   const diagnostics: Diagnostic[] = [];
   let blocking = false;
   const seen = new Set<string>();

@@ -2,7 +2,7 @@
  * What an analysis of one kernel file returns: plain data that every front end (command line, language server,
  * reports) presents in its own way. Numbers always travel with their error estimates.
  */
-import type { Diagnostic } from '../diagnostics/types';
+import type { Diagnostic, Severity } from '../diagnostics/types';
 import type { SourceFile } from '../syntax/ast';
 import type { TextRange } from '../syntax/textRange';
 import type { FileModel } from '../semantics/model';
@@ -64,6 +64,92 @@ export interface KernelReport {
   readonly hash: string | null;
   /** Null when the kernel was not analysed numerically (errors, unbounded, numerics switched off). */
   readonly spectrum: SpectrumReport | null;
+  /** The property checks (src-core/checks/); null (or empty) when the kernel was not analysed numerically. */
+  readonly hermitian: HermitianReport | null;
+  readonly boundedness: BoundednessReport | null;
+  readonly continuity: ContinuityReport | null;
+  readonly positive: PositivityReport | null;
+  /** How many modes carry 90 %, 99 % and 99.9 % of the trace; null unless the kernel is continuous and positive. */
+  readonly effectiveRank: EffectiveRankReport | null;
+  /** One entry per declared `resolvent μ`, in the order written. */
+  readonly resolvent: readonly ResolventReport[];
+}
+
+/** A point (t, s) of the square. */
+export interface PointTS {
+  readonly t: number;
+  readonly s: number;
+}
+
+/** A complex number as plain data. */
+export interface ComplexFigure {
+  readonly re: number;
+  readonly im: number;
+}
+
+export interface HermitianReport {
+  /** K(t, s) = conj K(s, t) to within the tolerance (or exactly, by construction). */
+  readonly holds: boolean;
+  /** Relative defect ‖K − K*‖_HS / ‖K‖_HS (0 when Hermitian by construction). */
+  readonly defect: number;
+  /** 'symbolic' when the expression is Hermitian by construction, else 'numeric'. */
+  readonly method: 'symbolic' | 'numeric';
+  /** Where |K(t, s) − conj K(s, t)| is largest on the sample grid (null when Hermitian by construction). */
+  readonly worst: (PointTS & { readonly value: ComplexFigure; readonly mirrored: ComplexFigure }) | null;
+}
+
+export type BoundednessClass = 'hilbert-schmidt' | 'bounded' | 'unbounded';
+
+export interface BoundednessReport {
+  readonly class: BoundednessClass;
+  /** The growth exponent α of |K| ~ d^(−α) at the worst singularity (0 for a logarithm); null when there is none. */
+  readonly exponent: number | null;
+  /** Where the worst singularity lies (“the diagonal t = s”, “the corner (0, 0)”), or null. */
+  readonly where: string | null;
+}
+
+export type ContinuityClass = 'continuous' | 'jump' | 'singular';
+
+export interface ContinuityReport {
+  readonly class: ContinuityClass;
+  /** The curve across which K jumps or where it is singular, or null. */
+  readonly where: string | null;
+  /** The largest jump measured across that curve, with its error; null unless class is 'jump'. */
+  readonly jump: Estimate | null;
+  /** Curves along which the first derivative jumps (information: they slow plain quadrature). */
+  readonly kinks: readonly string[];
+}
+
+export interface PositivityReport {
+  /** Positive semidefinite; null when it cannot be decided (no spectrum). Non-Hermitian kernels are not. */
+  readonly holds: boolean | null;
+  /** The most negative (smallest) eigenvalue with its error; null when not Hermitian or no spectrum. */
+  readonly minEigenvalue: Estimate | null;
+  /** A point proof of indefiniteness for a continuous kernel: K(t, t) < 0, or |K(t, s)|² > K(t, t) K(s, s). */
+  readonly certificate: (PointTS & { readonly kind: 'diagonal' | 'minor'; readonly margin: number }) | null;
+  /** Mercer's trace identity for a continuous positive kernel: ∫K(t, t) dt against the sum of all eigenvalues. */
+  readonly mercer: { readonly trace: Estimate; readonly sum: Estimate; readonly holds: boolean } | null;
+}
+
+export interface EffectiveRankReport {
+  /** Modes needed for 90 %, 99 %, 99.9 % of the trace; null when more than the resolved modes would be needed. */
+  readonly p90: number | null;
+  readonly p99: number | null;
+  readonly p999: number | null;
+  /** How many eigenvalues were resolved (agree between two discretisations). */
+  readonly resolvedModes: number;
+}
+
+export interface ResolventReport {
+  readonly mu: ComplexFigure;
+  /** True or false when decided; null when μ lies within the error of an eigenvalue (or no spectrum). */
+  readonly inResolventSet: boolean | null;
+  /** dist(μ, σ(T)) over the computed eigenvalues and 0, with its error; null without a spectrum. */
+  readonly distance: Estimate | null;
+  /** ‖(μ − T)⁻¹‖ = 1 / dist(μ, σ(T)) for Hermitian T in the resolvent set, else null. */
+  readonly resolventNorm: Estimate | null;
+  /** True when |μ| exceeds the spectral radius, so that the Neumann series of (μ − T)⁻¹ converges. */
+  readonly neumannConverges: boolean | null;
 }
 
 export interface FileAnalysis {
@@ -87,6 +173,18 @@ export interface AnalysisOptions {
   readonly targetAccuracy: number;
   /** Points per axis for the eigenfunction grids. */
   readonly gridPoints: number;
+  /**
+   * Severity of each property-check finding, by its catalogue name (e.g. `not-hermitian`, `kink`); 'off' silences
+   * it. Unlisted findings keep their catalogue severity. Failed declared claims are always errors.
+   */
+  readonly severities: Readonly<Partial<Record<string, Severity | 'off'>>>;
+  /** Largest relative defect ‖K − K*‖_HS / ‖K‖_HS still taken for Hermitian (raised to the engine's accuracy). */
+  readonly hermitianTolerance: number;
+  /**
+   * Eigenvalues above −(error + positivityTolerance · ‖T‖) count as non-negative (1e-8 by default: kernels with a
+   * removable singularity such as sin(t − s)/(t − s) lose digits near the diagonal, where t − s cancels).
+   */
+  readonly positivityTolerance: number;
 }
 
 export const defaultAnalysisOptions: AnalysisOptions = {
@@ -96,4 +194,7 @@ export const defaultAnalysisOptions: AnalysisOptions = {
   maxResolution: 384,
   targetAccuracy: 1e-12,
   gridPoints: 101,
+  severities: {},
+  hermitianTolerance: 1e-9,
+  positivityTolerance: 1e-8,
 };

@@ -76,7 +76,7 @@ export const catalogue = {
   'duplicate-parameter': entry('KW215', 'error', 'Duplicate parameter', 'Parameter “{name}” appears twice.',
     'The variables of a kernel or helper must have distinct names.'),
   'shadowed-name': entry('KW216', 'warning', 'Parameter hides another name', 'Parameter “{name}” hides the {what} of the same name inside this definition.',
-    'A parameter named like a constant, a helper, a kernel or a built-in constant (pi, e, i) hides it; rename the parameter.'),
+    'A parameter named like a constant, a helper, a kernel or a built-in (pi, e, i, exp, max, ...) hides it inside its definition, where the name means the parameter; rename the parameter.'),
   'missing-domain': entry('KW217', 'error', 'No domain', 'Kernel “{name}” has no domain: add “domain [a, b]” to the file or “on [a, b]” to the kernel.',
     'Every kernel is analysed on a bounded interval, from the file’s domain line or its own “on [a, b]”.'),
   'duplicate-domain': entry('KW218', 'warning', 'Second default domain', 'The file already has a default domain; this line is ignored.',
@@ -147,7 +147,7 @@ export const catalogue = {
     'μ is in the resolvent set when μI − T has a bounded inverse. For a compact operator on an infinite-dimensional space, 0 is always in the spectrum.'),
   'claim-undecided': entry('KW609', 'warning', 'Claim cannot be decided', 'Cannot confirm “{claim}” for “{name}”: {reason}.',
     'The claim lies within the error of the computed figures, or a figure it needs is not available. Raise the time budget, or state the claim with some margin.'),
-  'undeclared-property': entry('KW610', 'hint', 'Property holds but is not declared', 'Kernel “{name}” is also {list}; declaring {it} documents the property and keeps it checked.',
+  'undeclared-property': entry('KW610', 'hint', 'Property holds but is not declared', 'Kernel “{name}” also satisfies {list}; declaring {it} documents the property and keeps it checked.',
     'Declared claims are checked on every edit, so a later change that breaks them is caught. The quick fix appends the claims to the kernel’s expect clause.'),
 } as const satisfies Record<string, CatalogueEntry>;
 

@@ -6,7 +6,10 @@
  * one function. Increase `jsonReportVersion` only for changes that break readers (renamed or removed fields).
  */
 import type { Diagnostic, Severity } from '../diagnostics/types';
-import type { Estimate, EigenEstimate, FileAnalysis, KernelReport, NormEstimate } from '../analysis/types';
+import type {
+  BoundednessReport, ContinuityReport, EffectiveRankReport, Estimate, EigenEstimate, FileAnalysis, HermitianReport,
+  KernelReport, NormEstimate, PositivityReport, ResolventReport,
+} from '../analysis/types';
 import { LineIndex, type TextRange } from '../syntax/textRange';
 
 export const jsonReportVersion = 1;
@@ -92,6 +95,68 @@ export interface JsonKernel {
   readonly hsNorm: JsonEstimate | null;
   readonly trace: JsonEstimate | null;
   readonly method: string | null;
+  /** The property checks; null (or empty) when the kernel was not analysed numerically. */
+  readonly hermitian: JsonHermitian | null;
+  readonly boundedness: JsonBoundedness | null;
+  readonly continuity: JsonContinuity | null;
+  readonly positive: JsonPositive | null;
+  readonly effectiveRank: JsonEffectiveRank | null;
+  readonly resolvent: readonly JsonResolvent[];
+}
+
+export interface JsonPoint {
+  readonly t: number | null;
+  readonly s: number | null;
+}
+
+export interface JsonComplex {
+  readonly re: number | null;
+  readonly im: number | null;
+}
+
+export interface JsonHermitian {
+  readonly holds: boolean;
+  /** ‖K − K*‖_HS / ‖K‖_HS; 0 when Hermitian by construction (method 'symbolic'). */
+  readonly defect: number | null;
+  readonly method: 'symbolic' | 'numeric';
+  /** The point of the largest |K(t, s) − conj K(s, t)|, with both values; null when there is none. */
+  readonly worst: (JsonPoint & { readonly value: JsonComplex; readonly mirrored: JsonComplex }) | null;
+}
+
+export interface JsonBoundedness {
+  readonly class: 'hilbert-schmidt' | 'bounded' | 'unbounded';
+  readonly exponent: number | null;
+  readonly where: string | null;
+}
+
+export interface JsonContinuity {
+  readonly class: 'continuous' | 'jump' | 'singular';
+  readonly where: string | null;
+  readonly jump: JsonEstimate | null;
+  readonly kinks: readonly string[];
+}
+
+export interface JsonPositive {
+  readonly holds: boolean | null;
+  /** The most negative eigenvalue with its error. */
+  readonly minEigenvalue: JsonEstimate | null;
+  readonly certificate: (JsonPoint & { readonly kind: 'diagonal' | 'minor'; readonly margin: number | null }) | null;
+  readonly mercer: { readonly trace: JsonEstimate; readonly sum: JsonEstimate; readonly holds: boolean } | null;
+}
+
+export interface JsonEffectiveRank {
+  readonly p90: number | null;
+  readonly p99: number | null;
+  readonly p999: number | null;
+  readonly resolvedModes: number;
+}
+
+export interface JsonResolvent {
+  readonly mu: JsonComplex;
+  readonly inResolventSet: boolean | null;
+  readonly distance: JsonEstimate | null;
+  readonly resolventNorm: JsonEstimate | null;
+  readonly neumannConverges: boolean | null;
 }
 
 export interface JsonFile {
@@ -160,6 +225,54 @@ export function jsonDomain(domain: readonly [number, number] | null): readonly [
   return [domain[0], domain[1]];
 }
 
+function jsonComplex(z: { re: number; im: number }): JsonComplex {
+  return { re: jsonNumber(z.re), im: jsonNumber(z.im) };
+}
+
+export function jsonHermitian(h: HermitianReport | null): JsonHermitian | null {
+  if (!h) return null;
+  const w = h.worst;
+  return {
+    holds: h.holds,
+    defect: jsonNumber(h.defect),
+    method: h.method,
+    worst: w ? { t: jsonNumber(w.t), s: jsonNumber(w.s), value: jsonComplex(w.value), mirrored: jsonComplex(w.mirrored) } : null,
+  };
+}
+
+export function jsonBoundedness(b: BoundednessReport | null): JsonBoundedness | null {
+  return b ? { class: b.class, exponent: b.exponent === null ? null : jsonNumber(b.exponent), where: b.where } : null;
+}
+
+export function jsonContinuity(c: ContinuityReport | null): JsonContinuity | null {
+  return c ? { class: c.class, where: c.where, jump: jsonEstimate(c.jump), kinks: [...c.kinks] } : null;
+}
+
+export function jsonPositive(p: PositivityReport | null): JsonPositive | null {
+  if (!p) return null;
+  const c = p.certificate;
+  return {
+    holds: p.holds,
+    minEigenvalue: jsonEstimate(p.minEigenvalue),
+    certificate: c ? { t: jsonNumber(c.t), s: jsonNumber(c.s), kind: c.kind, margin: jsonNumber(c.margin) } : null,
+    mercer: p.mercer ? { trace: jsonEstimate(p.mercer.trace)!, sum: jsonEstimate(p.mercer.sum)!, holds: p.mercer.holds } : null,
+  };
+}
+
+export function jsonEffectiveRank(r: EffectiveRankReport | null): JsonEffectiveRank | null {
+  return r ? { p90: r.p90, p99: r.p99, p999: r.p999, resolvedModes: r.resolvedModes } : null;
+}
+
+export function jsonResolvent(r: ResolventReport): JsonResolvent {
+  return {
+    mu: jsonComplex(r.mu),
+    inResolventSet: r.inResolventSet,
+    distance: jsonEstimate(r.distance),
+    resolventNorm: jsonEstimate(r.resolventNorm),
+    neumannConverges: r.neumannConverges,
+  };
+}
+
 /** One kernel: its declaration and, when it was analysed numerically, its spectral figures with their errors. */
 export function jsonKernel(k: KernelReport, index: LineIndex): JsonKernel {
   const s = k.spectrum;
@@ -173,6 +286,12 @@ export function jsonKernel(k: KernelReport, index: LineIndex): JsonKernel {
     hsNorm: jsonEstimate(s?.hsNorm ?? null),
     trace: jsonEstimate(s?.trace ?? null),
     method: s ? s.method : null,
+    hermitian: jsonHermitian(k.hermitian),
+    boundedness: jsonBoundedness(k.boundedness),
+    continuity: jsonContinuity(k.continuity),
+    positive: jsonPositive(k.positive),
+    effectiveRank: jsonEffectiveRank(k.effectiveRank),
+    resolvent: k.resolvent.map(jsonResolvent),
   };
 }
 

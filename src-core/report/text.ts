@@ -90,8 +90,33 @@ export function formatSpectrumFigures(spectrum: SpectrumReport): string {
 }
 
 /**
- * `path:line: kernel name on [a, b]: norm … ± …, λ₁ … ± … (method)` for a kernel with a spectrum; null when the
- * kernel was not analysed numerically.
+ * The property checks in a few words, e.g. `Hermitian, positive semidefinite, continuous, Hilbert–Schmidt,
+ * 90/99/99.9 % of the trace in 2/2/3 modes`; empty when the checks did not run.
+ */
+export function formatProperties(kernel: KernelReport): string {
+  const parts: string[] = [];
+  const h = kernel.hermitian;
+  if (h) parts.push(h.holds ? 'Hermitian' : `not Hermitian (defect ${formatNumber(h.defect, 2)})`);
+  const p = kernel.positive;
+  if (p && h?.holds && p.holds !== null) {
+    const m = p.minEigenvalue;
+    parts.push(p.holds ? 'positive semidefinite' : `not positive${m ? ` (λmin ${formatEstimate(m.value, m.error)})` : ''}`);
+  }
+  const c = kernel.continuity;
+  if (c) parts.push(c.class === 'continuous' ? 'continuous' : c.class === 'jump' ? `jumps across ${c.where ?? 'a curve'}` : `singular on ${c.where ?? 'a set'}`);
+  const b = kernel.boundedness;
+  if (b) parts.push(b.class === 'hilbert-schmidt' ? 'Hilbert–Schmidt' : b.class === 'bounded' ? 'bounded, not Hilbert–Schmidt' : 'unbounded');
+  const r = kernel.effectiveRank;
+  if (r) {
+    const show = (x: number | null) => (x === null ? `>${r.resolvedModes}` : String(x));
+    parts.push(`90/99/99.9 % of the trace in ${show(r.p90)}/${show(r.p99)}/${show(r.p999)} modes`);
+  }
+  return parts.join(', ');
+}
+
+/**
+ * `path:line: kernel name on [a, b]: norm … ± …, λ₁ … ± …; properties (method)` for a kernel with a spectrum; null
+ * when the kernel was not analysed numerically.
  */
 export function formatKernelLine(path: string, kernel: KernelReport, index: LineIndex): string | null {
   const spectrum = kernel.spectrum;
@@ -100,7 +125,8 @@ export function formatKernelLine(path: string, kernel: KernelReport, index: Line
   const domain = kernel.domain ? ` on [${formatNumber(kernel.domain[0], maxDigits)}, ${formatNumber(kernel.domain[1], maxDigits)}]` : '';
   const notes = [spectrum.method, ...(spectrum.converged ? [] : ['accuracy target not reached'])].filter((n) => n.length > 0);
   const tail = notes.length > 0 ? ` (${notes.join('; ')})` : '';
-  return `${path}:${line}: kernel ${kernel.name}${domain}: ${formatSpectrumFigures(spectrum)}${tail}`;
+  const properties = formatProperties(kernel);
+  return `${path}:${line}: kernel ${kernel.name}${domain}: ${formatSpectrumFigures(spectrum)}${properties ? `; ${properties}` : ''}${tail}`;
 }
 
 /** All lines of one file: its diagnostics in order, then one line per kernel with a spectrum. */

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { jsonKernel, jsonNumber, jsonReport, jsonReportVersion } from '../../src-core/report/index';
+import { analysedFile, jsonKernel, jsonNumber, jsonReport, jsonReportVersion } from '../../src-core/report/index';
+import { analyzeText } from '../../src-core/analysis/analyze';
 import { LineIndex } from '../../src-core/syntax/textRange';
 import { sampleFile, sampleText } from './reportData';
 
@@ -57,6 +58,12 @@ describe('jsonReport', () => {
       hsNorm: null,
       trace: null,
       method: null,
+      hermitian: null,
+      boundedness: null,
+      continuity: null,
+      positive: null,
+      effectiveRank: null,
+      resolvent: [],
     });
     expect(wave.complex).toBe(true);
     expect(wave.eigenvalues).toEqual([
@@ -81,5 +88,61 @@ describe('jsonReport', () => {
 
   it('reports an empty run as zero files', () => {
     expect(jsonReport([], tool).summary).toEqual({ files: 0, errors: 0, warnings: 0, infos: 0, hints: 0 });
+  });
+});
+
+describe('the property checks in the JSON report', () => {
+  // Invented scenario: two textbook kernels on [0, 1]; the values mean nothing beyond this test.
+  const text = [
+    'domain [0, 1]',
+    'kernel brownian(t, s) = min(t, s)',
+    '  expect resolvent 0.5, resolvent 1 + i',
+    'kernel lopsided(t, s) = t * s^2',
+    'kernel wire(t, s) = 1 / abs(t - s)',
+    '',
+  ].join('\n');
+  const report = JSON.parse(JSON.stringify(jsonReport([analysedFile('a.kw', analyzeText(text, { timeBudgetMs: 5000 }))], tool)));
+  const [brownian, lopsided, wire] = report.files[0].kernels;
+
+  it('gives hermitian, boundedness, continuity, positive and effectiveRank for each analysed kernel', () => {
+    expect(brownian.hermitian).toEqual({ holds: true, defect: 0, method: 'symbolic', worst: null });
+    expect(brownian.boundedness).toEqual({ class: 'hilbert-schmidt', exponent: null, where: null });
+    expect(brownian.continuity).toEqual({ class: 'continuous', where: null, jump: null, kinks: ['the diagonal t = s'] });
+    expect(brownian.positive.holds).toBe(true);
+    expect(brownian.positive.minEigenvalue.value + brownian.positive.minEigenvalue.error).toBeGreaterThanOrEqual(0);
+    // Brownian motion on [0, 1]: λ_k = 1/((k − 1/2)² π²) and trace 1/2 (common practice), so λ₁ + λ₂ = 0.4503 is
+    // the first partial sum above 90 % of the trace.
+    expect(brownian.effectiveRank.p90).toBe(2);
+  });
+
+  it('gives the worst point of a kernel that is not symmetric, with both values', () => {
+    const w = lopsided.hermitian.worst;
+    expect(lopsided.hermitian.holds).toBe(false);
+    expect(w.value.re).toBeCloseTo(w.t * w.s ** 2, 14);
+    expect(w.mirrored.re).toBeCloseTo(w.s * w.t ** 2, 14);
+    expect(lopsided.positive).toMatchObject({ holds: false, minEigenvalue: null });
+    expect(lopsided.effectiveRank).toBeNull();
+  });
+
+  it('gives an unbounded kernel a class, an exponent and a place, and no eigenvalues or norm', () => {
+    expect(wire.boundedness).toEqual({ class: 'unbounded', exponent: 1, where: 'the diagonal t = s' });
+    expect(wire.continuity.class).toBe('singular');
+    expect(wire.eigenvalues).toEqual([]);
+    expect(wire.norm).toBeNull();
+    expect(wire.positive.holds).toBeNull();
+  });
+
+  it('lists each declared resolvent point with μ as {re, im}', () => {
+    expect(brownian.resolvent).toHaveLength(2);
+    const [half, complex] = brownian.resolvent;
+    expect(half.mu).toEqual({ re: 0.5, im: 0 });
+    expect(half.inResolventSet).toBe(true);
+    // The nearest eigenvalue is λ₁ = 4/π².
+    expect(half.distance.value).toBeCloseTo(0.5 - 4 / Math.PI ** 2, 12);
+    expect(half.resolventNorm.value).toBeCloseTo(1 / (0.5 - 4 / Math.PI ** 2), 9);
+    expect(half.neumannConverges).toBe(true);
+    expect(complex.mu).toEqual({ re: 1, im: 1 });
+    expect(complex.distance.value).toBeCloseTo(Math.hypot(1 - 4 / Math.PI ** 2, 1), 12);
+    for (const [, n] of numbersIn(report)) expect(Number.isFinite(n)).toBe(true);
   });
 });

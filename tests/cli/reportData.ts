@@ -57,6 +57,12 @@ function kernel(name: string, declStart: string, spec: SpectrumReport | null, co
     complex,
     hash: null,
     spectrum: spec,
+    hermitian: null,
+    boundedness: null,
+    continuity: null,
+    positive: null,
+    effectiveRank: null,
+    resolvent: [],
   };
 }
 

@@ -7,6 +7,7 @@ import {
   formatFileText,
   formatKernelLine,
   formatNumber,
+  formatProperties,
   formatSummaryText,
   summarize,
 } from '../../src-core/report/index';
@@ -92,6 +93,35 @@ describe('formatKernelLine', () => {
   it('says when figures are missing and when the accuracy target was not reached', () => {
     const line = formatKernelLine('a.kw', sampleFile.kernels[2], index);
     expect(line).toBe('a.kw:7: kernel dry on [0, 2]: norm unknown, no eigenvalues (Gauss–Legendre Nyström, n = 96; accuracy target not reached)');
+  });
+});
+
+describe('formatProperties', () => {
+  const index = new LineIndex(sampleText);
+  const wave = sampleFile.kernels[1];
+  it('is empty when the checks did not run', () => expect(formatProperties(wave)).toBe(''));
+  it('names each property in a few words, the minimum eigenvalue with its error', () => {
+    const judged = {
+      ...wave,
+      hermitian: { holds: true, defect: 0, method: 'symbolic' as const, worst: null },
+      positive: { holds: false, minEigenvalue: { value: -0.25, error: 3e-10 }, certificate: null, mercer: null },
+      continuity: { class: 'jump' as const, where: 'the diagonal t = s', jump: { value: 2, error: 1e-15 }, kinks: [] },
+      boundedness: { class: 'bounded' as const, exponent: 0.5, where: 'the diagonal t = s' },
+    };
+    expect(formatProperties(judged)).toBe('Hermitian, not positive (λmin -0.25 ± 3e-10), jumps across the diagonal t = s, bounded, not Hilbert–Schmidt');
+    expect(formatKernelLine('a.kw', judged, index)).toBe(
+      'a.kw:5: kernel wave on [0, 2]: norm 0.7312456789 ± 3.2e-9, λ₁ 0.7312456789 ± 3.2e-9; Hermitian, not positive (λmin -0.25 ± 3e-10), '
+      + 'jumps across the diagonal t = s, bounded, not Hilbert–Schmidt (Gauss–Legendre Nyström, n = 96)',
+    );
+  });
+  it('gives the effective rank, with “>” for counts beyond the resolved modes', () => {
+    const positive = {
+      ...wave,
+      hermitian: { holds: true, defect: 0, method: 'symbolic' as const, worst: null },
+      positive: { holds: true, minEigenvalue: { value: 1e-6, error: 4e-7 }, certificate: null, mercer: null },
+      effectiveRank: { p90: 2, p99: 21, p999: null, resolvedModes: 24 },
+    };
+    expect(formatProperties(positive)).toBe('Hermitian, positive semidefinite, 90/99/99.9 % of the trace in 2/21/>24 modes');
   });
 });
 

@@ -1,0 +1,124 @@
+/**
+ * The Hermitian (self-adjoint) check: T is self-adjoint exactly when K(t, s) = conj K(s, t) almost everywhere
+ * (for a real kernel: K symmetric).
+ *
+ * What it measures:
+ *  - first, symbolically, whether the expression is Hermitian by construction (symbolicHermitian.ts); then the
+ *    defect is exactly 0 and no sampling noise enters;
+ *  - otherwise the relative defect ‖K − K*‖_HS / ‖K‖_HS, sampled with Gauss–Legendre rules of 64 points in t and
+ *    63 in s (two rules without a common point, so the grid never lies on the diagonal, where a piecewise kernel
+ *    may take either branch), with the point of the largest |K(t, s) − conj K(s, t)|; and the Galerkin matrix
+ *    defect ‖A − Aᴴ‖_F / ‖A‖_F from the engine.
+ * Tolerance: the larger of the `hermitianTolerance` setting and the relative accuracy the engine reached (a
+ * defect below what the discretisation can resolve is no evidence). Both defects must be within it.
+ * Finding: KW501 on the kernel's name (a symmetrize fix attached); claim: KW601 on the `hermitian` item.
+ */
+import type { ClaimVerdict, CheckContext, Finding } from './types';
+import { holds } from './types';
+import type { HermitianReport } from '../analysis/types';
+import type { Fix } from '../diagnostics/types';
+import { isHermitianByConstruction } from './symbolicHermitian';
+import { fmt, fmtComplex, gaussGrid, sampleGrid } from './sampling';
+
+export interface SymmetryFacts {
+  readonly report: HermitianReport;
+  /** Relative defects: sampled on the grid, and of the Galerkin matrix (NaN without one). */
+  readonly gridDefect: number;
+  readonly galerkinDefect: number;
+  readonly tolerance: number;
+  readonly complex: boolean;
+}
+
+export function measureSymmetry(ctx: CheckContext): SymmetryFacts {
+  const galerkinDefect = ctx.engine.finest ? ctx.engine.defect : NaN;
+  const reached = Number.isFinite(ctx.engine.reached) ? ctx.engine.reached : 0;
+  const tolerance = Math.max(ctx.options.hermitianTolerance, reached);
+  const complex = ctx.ir.complex;
+  if (isHermitianByConstruction(ctx.ir)) {
+    return { report: { holds: true, defect: 0, method: 'symbolic', worst: null }, gridDefect: 0, galerkinDefect, tolerance, complex };
+  }
+  const [a, b] = ctx.domain;
+  const gt = gaussGrid(a, b, 64);
+  const gs = gaussGrid(a, b, 63);
+  const nt = gt.nodes.length;
+  const ns = gs.nodes.length;
+  const k = sampleGrid(ctx.compiled, gt.nodes, gs.nodes); // K(t_i, s_j) at i * ns + j
+  const m = sampleGrid(ctx.compiled, gs.nodes, gt.nodes); // K(s_j, t_i) at j * nt + i
+  let num = 0;
+  let den = 0;
+  let worst = -1;
+  let worstAt = { i: 0, j: 0 };
+  for (let i = 0; i < nt; i++) {
+    for (let j = 0; j < ns; j++) {
+      const p = i * ns + j;
+      const q = j * nt + i;
+      const kr = k.re[p];
+      const ki = k.im ? k.im[p] : 0;
+      const mr = m.re[q];
+      const mi = m.im ? -m.im[q] : 0; // conj K(s, t)
+      if (!Number.isFinite(kr) || !Number.isFinite(ki) || !Number.isFinite(mr) || !Number.isFinite(mi)) continue;
+      const w = gt.weights[i] * gs.weights[j];
+      const d2 = (kr - mr) ** 2 + (ki - mi) ** 2;
+      num += w * d2;
+      den += w * 0.5 * (kr * kr + ki * ki + mr * mr + mi * mi);
+      if (d2 > worst) { worst = d2; worstAt = { i, j }; }
+    }
+  }
+  const gridDefect = den > 0 ? Math.sqrt(num / den) : 0;
+  const holdsNow = gridDefect <= tolerance && !(galerkinDefect > tolerance);
+  const { i, j } = worstAt;
+  const p = i * ns + j;
+  const q = j * nt + i;
+  const report: HermitianReport = {
+    holds: holdsNow,
+    defect: gridDefect,
+    method: 'numeric',
+    worst: worst > 0 ? {
+      t: gt.nodes[i], s: gs.nodes[j],
+      value: { re: k.re[p], im: k.im ? k.im[p] : 0 },
+      mirrored: { re: m.re[q], im: m.im ? -m.im[q] : 0 },
+    } : null,
+  };
+  return { report, gridDefect, galerkinDefect, tolerance, complex };
+}
+
+function messageArgs(ctx: { name: string }, f: SymmetryFacts): Record<string, string | number> {
+  const w = f.report.worst;
+  return {
+    name: ctx.name,
+    what: f.complex ? 'Hermitian' : 'symmetric',
+    defect: fmt(f.report.defect, 3),
+    t: w ? fmt(w.t, 4) : '?',
+    s: w ? fmt(w.s, 4) : '?',
+    value: w ? fmtComplex(w.value.re, w.value.im, 6) : '?',
+    mirror: f.complex ? 'conj K(s, t)' : 'K(s, t)',
+    mirrored: w ? fmtComplex(w.mirrored.re, w.mirrored.im, 6) : '?',
+  };
+}
+
+function figures(f: SymmetryFacts): Record<string, number | null> {
+  const w = f.report.worst;
+  return {
+    defect: f.report.defect,
+    galerkinDefect: Number.isFinite(f.galerkinDefect) ? f.galerkinDefect : null,
+    tolerance: f.tolerance,
+    t: w?.t ?? null,
+    s: w?.s ?? null,
+  };
+}
+
+export function symmetryFindings(ctx: { name: string }, f: SymmetryFacts, symmetrize: Fix | null): Finding[] {
+  if (f.report.holds) return [];
+  return [{
+    name: 'not-hermitian', args: messageArgs(ctx, f), figures: figures(f), covers: ['hermitian'],
+    ...(symmetrize ? { fixes: [symmetrize] } : {}),
+  }];
+}
+
+export function hermitianClaim(ctx: { name: string }, f: SymmetryFacts, symmetrize: Fix | null): ClaimVerdict {
+  if (f.report.holds) return holds;
+  return {
+    outcome: 'fails', diagnostic: 'hermitian-claim-failed', args: messageArgs(ctx, f), figures: figures(f),
+    ...(symmetrize ? { fixes: [symmetrize] } : {}),
+  };
+}
