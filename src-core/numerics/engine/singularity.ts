@@ -99,10 +99,13 @@ export function estimateSingularity(kernel: CompiledKernel, locus: Locus, a: num
       if (rankOf({ type, exponent }) > rankOf(best)) best = { type, exponent, at: p };
     }
   }
-  const limit = point ? 2 : 1;
+  // Along a line: bounded iff α < 1 (Schur's test), Hilbert–Schmidt iff α < 1/2. At a corner point the operator
+  // is bounded iff α ≤ 1 (α = 1 is the scale-invariant case of Hilbert's inequality for 1/(t + s); G. H. Hardy,
+  // J. E. Littlewood & G. Pólya, Inequalities, 1934, §9.1) and Hilbert–Schmidt iff α < 1.
+  const power = best.type === 'power';
   return {
     locus, type: best.type, exponent: best.exponent, point, at: best.at,
-    integrable: best.type !== 'power' || best.exponent < limit - 1e-6,
-    squareIntegrable: best.type !== 'power' || best.exponent < limit / 2 - 1e-6,
+    integrable: !power || (point ? best.exponent <= 1 + 1e-6 : best.exponent < 1 - 1e-6),
+    squareIntegrable: !power || best.exponent < (point ? 1 : 0.5) - 1e-6,
   };
 }

@@ -188,8 +188,12 @@ export function describeLine(l: Locus): string {
   if (cs === 0) return `the line t = ${fmt(-c0 / ct)}`;
   if (ct === 0) return `the line s = ${fmt(-c0 / cs)}`;
   if (ct === -cs && c0 === 0) return 'the diagonal t = s';
-  if (ct === cs) return `the line t + s = ${fmt(-c0 / ct)}`;
-  return `the line ${fmt(ct)}·t ${cs < 0 ? '−' : '+'} ${fmt(Math.abs(cs))}·s = ${fmt(-c0)}`;
+  const term = (c: number, v: string, first: boolean) => {
+    const mag = Math.abs(c) === 1 ? v : `${fmt(Math.abs(c))}·${v}`;
+    if (first) return c < 0 ? `−${mag}` : mag;
+    return c < 0 ? ` − ${mag}` : ` + ${mag}`;
+  };
+  return `the line ${term(ct, 't', true)}${term(cs, 's', false)} = ${fmt(-c0)}`;
 }
 
 function describeMethod(finest: LevelSolution, levels: number): string {
