@@ -3,11 +3,11 @@
  * Hermitian kernel in the Hilbert–Schmidt norm. The mirrored term is the body with the kernel's two variables
  * swapped in the syntax tree (helpers and constants keep their names); a real kernel needs no conj.
  *
- * For a real kernel the text is then offered to mathjs `simplify` (e.g. (t·s + s·t)/2 becomes t·s). The simplified
+ * For a real kernel the text is then offered to the installed simplifier (mathjs `simplify`, see simplifier.ts) (e.g. (t·s + s·t)/2 becomes t·s). The simplified
  * text is used only when it is not longer, parses with our parser, binds in the file without errors, and equals
  * the Hermitian part at 16 random points of the square to 10⁻¹⁰; otherwise the plain form is kept.
  */
-import { parse as mathParse, simplify } from 'mathjs';
+import { expressionSimplifier } from './simplifier';
 import type { Expr, KernelDecl } from '../syntax/ast';
 import type { Fix } from '../diagnostics/types';
 import { printExpr } from '../syntax/printer';
@@ -90,9 +90,11 @@ function matchesHermitianPart(k: KernelSymbol, text: string, candidate: string):
 
 /** mathjs' simplification of a real expression, printed in our syntax, or null when mathjs cannot handle it. */
 function simplified(plain: string): string | null {
-  if (plain.length > 400) return null;
+  const simplify = expressionSimplifier();
+  if (!simplify || plain.length > 400) return null;
   try {
-    const out = simplify(mathParse(plain)).toString({ parenthesis: 'auto', implicit: 'show' });
+    const out = simplify(plain);
+    if (out === null) return null;
     const reparsed = parseExpression(out);
     if (reparsed.diagnostics.length > 0) return null;
     return printExpr(reparsed.expr);
