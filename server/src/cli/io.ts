@@ -4,4 +4,10 @@ export interface CliIo {
   readonly out: (text: string) => void;
   /** Writes one message line to standard error (the newline is added). */
   readonly err: (line: string) => void;
+  /** Writes to standard error as is, for the progress line on a terminal (absent: no progress line). */
+  readonly status?: (text: string) => void;
+  /** Which streams are terminals (absent: neither, as in CI logs and tests). */
+  readonly terminal?: { readonly stdout: boolean; readonly stderr: boolean; readonly columns?: number };
+  /** The environment (for NO_COLOR); absent: empty. */
+  readonly env?: Readonly<Record<string, string | undefined>>;
 }

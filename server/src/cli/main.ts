@@ -5,6 +5,7 @@
 import { ExitCode } from './exitCode';
 import type { CliIo } from './io';
 import { runCli } from './run';
+import { installMathjsSimplifier } from '../mathjsSimplifier';
 
 const prefix = 'kernwright: ';
 
@@ -27,13 +28,20 @@ process.on('uncaughtException', (error) => {
   process.exit(ExitCode.usage);
 });
 
+// The fixes (shown by fix, and in SARIF) simplify their text as the editor's do.
+installMathjsSimplifier();
+
 const io: CliIo = {
   out: (text) => process.stdout.write(text),
   err: (line) => process.stderr.write(`${prefix}${line}\n`),
+  status: (text) => process.stderr.write(text),
+  terminal: { stdout: process.stdout.isTTY === true, stderr: process.stderr.isTTY === true, columns: process.stderr.columns },
+  env: process.env,
 };
 
-try {
-  process.exitCode = runCli(process.argv.slice(2), io);
-} catch (error) {
-  fail(error);
-}
+runCli(process.argv.slice(2), io).then(
+  (code) => {
+    process.exitCode = code;
+  },
+  (error: unknown) => fail(error),
+);

@@ -1,11 +1,14 @@
-/** The whole program as a function of its arguments: parse, dispatch, return the exit code. */
+/** The whole program as a function of its arguments: parse, dispatch, resolve to the exit code. */
 import { parseArgs, usageText } from './args';
 import { runCheck, type Analyzer } from './checkCommand';
+import { runCompare } from './compareCommand';
 import { ExitCode } from './exitCode';
+import { runExport } from './exportCommand';
+import { runFix } from './fixCommand';
 import type { CliIo } from './io';
 import { toolName, toolVersion } from './version';
 
-export function runCli(argv: readonly string[], io: CliIo, analyze?: Analyzer): number {
+export async function runCli(argv: readonly string[], io: CliIo, analyze?: Analyzer): Promise<number> {
   const command = parseArgs(argv);
   switch (command.kind) {
     case 'help':
@@ -19,5 +22,11 @@ export function runCli(argv: readonly string[], io: CliIo, analyze?: Analyzer): 
       return ExitCode.usage;
     case 'check':
       return runCheck(command.options, io, analyze);
+    case 'compare':
+      return runCompare(command.options, io);
+    case 'fix':
+      return runFix(command.options, io);
+    case 'export':
+      return runExport(command.options, io);
   }
 }
