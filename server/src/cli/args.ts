@@ -101,6 +101,7 @@ export const usageText = `Usage: kernwright check [options] <files or folders...
        kernwright compare [options] --base <revision> [--head <revision>] [paths...]
        kernwright fix [--only <kind>] [--dry-run] <files...>
        kernwright export <file> [--kernel <name>] [--format json|csv|npy] [-o <file or folder>]
+       kernwright report <file> [-o <file.html>|-] [--kernel <name>]...
        kernwright --help | --version
 
 check: syntax, names, evaluation faults and, unless switched off, the numerical analysis (spectrum, norms,
@@ -132,6 +133,12 @@ array into the folder -o FOLDER.
   -o, --output PATH           where to write
   --eigenvalues N             how many eigenpairs (default 8)
   --grid-points N             points of the eigenfunction grid (default 101)
+
+report: one self-contained HTML page (inline SVG, no script, no external requests) with the pictures and the
+figures of every kernel: heat maps of K and of its Hermitian defect, the eigenvalues, the leading eigenfunctions.
+  -o, --output FILE|-         where to write (default: <file name>.html; - prints the page)
+  --kernel NAME               only this kernel (may be repeated)
+  --eigenvalues N, --eigenfunctions N, --grid-points N
 
 Common options:
   --time-budget MS            time for the numerical analysis of each kernel (default 250)

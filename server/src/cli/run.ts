@@ -5,10 +5,12 @@ import { runCompare } from './compareCommand';
 import { ExitCode } from './exitCode';
 import { runExport } from './exportCommand';
 import { runFix } from './fixCommand';
+import { runReportCommand } from './reportCommand';
 import type { CliIo } from './io';
 import { toolName, toolVersion } from './version';
 
 export async function runCli(argv: readonly string[], io: CliIo, analyze?: Analyzer): Promise<number> {
+  if (argv[0] === 'report') return runReportCommand(argv.slice(1), io);
   const command = parseArgs(argv);
   switch (command.kind) {
     case 'help':
