@@ -7,15 +7,15 @@ import type { Expr, Interval, Name, SourceFile } from '../syntax/ast';
 import type { Diagnostic } from '../diagnostics/types';
 import { makeDiagnostic } from '../diagnostics/make';
 import { cover } from '../syntax/textRange';
-import { isBuiltinConstant } from './builtins';
+import { isBuiltinConstant, isBuiltinFunction } from './builtins';
 import { evaluateClosed, formatComplex, formatNumber } from './values';
 import { collectScope, describeSymbol, type DraftKernel, type DraftSymbol, type Scope } from './scope';
 import { checkNames } from './resolveNames';
-import { IrTooLargeError, lowerFunction, maxIrNodes } from './lower';
+import { expandedSize, IrTooLargeError, lowerFunction, maxIrNodes } from './lower';
 import { canonicalIr, hashText } from './hash';
 import { findCycles } from './cycles';
 import { bindExpectations } from './expectations';
-import type { ComplexValue, FileModel, ResolvedDomain } from './model';
+import type { ConstantSymbol, FileModel, ResolvedDomain } from './model';
 
 function checkParams(kind: 'fn' | 'kernel', name: Name, params: readonly Name[], scope: Scope, diagnostics: Diagnostic[]): boolean {
   let ok = true;
@@ -32,8 +32,10 @@ function checkParams(kind: 'fn' | 'kernel', name: Name, params: readonly Name[],
       diagnostics.push(makeDiagnostic('shadowed-name', p.range, { name: p.text, what: describeSymbol(other) }, {
         related: [{ range: other.nameRange, message: `the ${describeSymbol(other)} “${p.text}”` }],
       }));
-    } else if (isBuiltinConstant(p.text)) {
-      diagnostics.push(makeDiagnostic('shadowed-name', p.range, { name: p.text, what: 'built-in constant' }));
+    } else if (isBuiltinConstant(p.text) || isBuiltinFunction(p.text)) {
+      // Inside the definition the name is the variable: `exp(x)` there is an error, `pi` is the argument.
+      const what = isBuiltinConstant(p.text) ? 'built-in constant' : 'built-in function';
+      diagnostics.push(makeDiagnostic('shadowed-name', p.range, { name: p.text, what }));
     }
   }
   if (kind === 'kernel' && params.length !== 2) {
@@ -46,13 +48,93 @@ function checkParams(kind: 'fn' | 'kernel', name: Name, params: readonly Name[],
   return ok;
 }
 
+/**
+ * Decides which definitions are sound (own body fine, not in a cycle, everything used sound, not too large once
+ * helpers are expanded) and evaluates the sound constants, in one depth-first pass that finishes every definition
+ * after the ones it uses. So a constant is evaluated only when everything it reaches (constants behind helpers
+ * included) already has its value; a definition that fails (a value that is not finite, an expansion that is too
+ * large) is reported once and makes everything that uses it unsound without a second error; and a long chain of
+ * definitions cannot exhaust the call stack. Only the declaration that owns a name can be sound: duplicates and
+ * reserved names are reported and not analysed further.
+ */
+function settleDefinitions(
+  scope: Scope,
+  uses: ReadonlyMap<DraftSymbol, readonly DraftSymbol[]>,
+  bodyOk: ReadonlyMap<DraftSymbol, boolean>,
+  inCycle: ReadonlySet<DraftSymbol>,
+  diagnostics: Diagnostic[],
+): Map<DraftSymbol, boolean> {
+  const sound = new Map<DraftSymbol, boolean>();
+  const active = new Set<DraftSymbol>();
+  // Expanded size of each sound definition's body (see expandedSize); a call adds its callee's body and parameters.
+  const sizes = new Map<DraftSymbol, number>();
+  const calleeSize = (name: string): number => {
+    const callee = scope.symbols.get(name);
+    if (!callee || callee.kind === 'const') return 0;
+    return (sizes.get(callee) ?? 0) + callee.decl.params.length;
+  };
+  const open = (sym: DraftSymbol) => {
+    active.add(sym);
+    const ok = bodyOk.get(sym) === true && !inCycle.has(sym) && scope.symbols.get(sym.name) === sym;
+    return { sym, next: 0, ok };
+  };
+  for (const root of scope.all) {
+    if (sound.has(root)) continue;
+    const stack = [open(root)];
+    while (stack.length > 0) {
+      const top = stack[stack.length - 1];
+      const deps = uses.get(top.sym) ?? [];
+      if (top.next < deps.length) {
+        const dep = deps[top.next++];
+        const known = sound.get(dep);
+        if (known !== undefined) top.ok &&= known;
+        else if (active.has(dep)) top.ok = false; // a way back to a definition still open: a cycle
+        else stack.push(open(dep));
+        continue;
+      }
+      stack.pop();
+      active.delete(top.sym);
+      let ok = top.ok;
+      if (ok) {
+        // Everything used is sound and measured: refuse an expansion that is too large here, where it first is.
+        const body = top.sym.kind === 'const' ? top.sym.decl.value : top.sym.decl.body;
+        const size = expandedSize(body, calleeSize);
+        if (size > maxIrNodes) {
+          diagnostics.push(makeDiagnostic('expression-too-complex', body.range, {
+            what: 'has too many parts after expanding helper functions', limit: maxIrNodes,
+          }));
+          ok = false;
+        } else sizes.set(top.sym, size);
+      }
+      ok &&= top.sym.kind !== 'const' || evaluateConstant(top.sym, scope, diagnostics);
+      sound.set(top.sym, ok);
+      if (stack.length > 0) stack[stack.length - 1].ok &&= ok;
+    }
+  }
+  return sound;
+}
+
+/** Evaluates a constant whose dependencies all have values; false (with a diagnostic) when it has none. */
+function evaluateConstant(sym: ConstantSymbol, scope: Scope, diagnostics: Diagnostic[]): boolean {
+  const v = evaluateClosed(sym.decl.value, scope, diagnostics);
+  if (!v) return false;
+  if (!Number.isFinite(v.re) || !Number.isFinite(v.im)) {
+    diagnostics.push(makeDiagnostic('constant-not-finite', sym.decl.value.range, { name: sym.name, value: formatComplex(v) }));
+    return false;
+  }
+  sym.value = v;
+  return true;
+}
+
 function bindInterval(
-  interval: Interval, own: boolean, scope: Scope, text: string, diagnostics: Diagnostic[],
+  interval: Interval, own: boolean, scope: Scope, isSound: (sym: DraftSymbol) => boolean, text: string,
+  diagnostics: Diagnostic[],
 ): ResolvedDomain | null {
   const ends: (number | null)[] = [];
   for (const [which, expr] of [['a', interval.lower], ['b', interval.upper]] as const) {
     const names = checkNames(expr, [], scope, diagnostics);
-    if (!names.ok) { ends.push(null); continue; }
+    // A broken definition used here has its own error; the domain is then simply unknown.
+    if (!names.ok || !names.uses.every(isSound)) { ends.push(null); continue; }
     const v = evaluateClosed(expr, scope, diagnostics);
     if (!v) { ends.push(null); continue; }
     if (v.im !== 0) {
@@ -112,36 +194,12 @@ export function bindFile(source: SourceFile): FileModel {
     uses.set(sym, r.uses);
   }
 
-  // 2. Cycles, then which definitions are sound (own body fine, everything used sound, not in a cycle).
+  // 2. Cycles, then which definitions are sound, and the values of the sound constants.
   const inCycle = findCycles(scope.all, uses, diagnostics);
-  const sound = new Map<DraftSymbol, boolean>();
-  const isSound = (sym: DraftSymbol, depth = 0): boolean => {
-    const known = sound.get(sym);
-    if (known !== undefined) return known;
-    if (inCycle.has(sym) || depth > 10_000) return false;
-    sound.set(sym, false); // provisional, guards against revisits
-    const ok = bodyOk.get(sym)! && uses.get(sym)!.every((u) => isSound(u, depth + 1));
-    sound.set(sym, ok);
-    return ok;
-  };
+  const sound = settleDefinitions(scope, uses, bodyOk, inCycle, diagnostics);
+  const isSound = (sym: DraftSymbol): boolean => sound.get(sym) === true;
 
-  // 3. Constants, in dependency order (isSound recursion order is not evaluation order: evaluate on demand).
-  const evaluating = new Set<DraftSymbol>();
-  const evaluateConstant = (sym: DraftSymbol): void => {
-    if (sym.kind !== 'const' || sym.value || evaluating.has(sym) || !isSound(sym)) return;
-    evaluating.add(sym);
-    for (const u of uses.get(sym)!) evaluateConstant(u);
-    const v = evaluateClosed(sym.decl.value, scope, diagnostics);
-    if (v && (!Number.isFinite(v.re) || !Number.isFinite(v.im))) {
-      diagnostics.push(makeDiagnostic('constant-not-finite', sym.decl.value.range, { name: sym.name, value: formatComplex(v) }));
-      sound.set(sym, false);
-    } else if (v) {
-      sym.value = v;
-    } else sound.set(sym, false);
-  };
-  for (const sym of scope.all) if (scope.symbols.get(sym.name) === sym) evaluateConstant(sym);
-
-  // 4. The default domain: the first `domain` line.
+  // 3. The default domain: the first `domain` line.
   let defaultDomain: ResolvedDomain | null = null;
   let firstDomain: Interval | null = null;
   for (const d of source.declarations) {
@@ -150,27 +208,31 @@ export function bindFile(source: SourceFile): FileModel {
       diagnostics.push(makeDiagnostic('duplicate-domain', d.range, {}, {
         related: [{ range: firstDomain.range, message: 'the default domain' }],
       }));
+      // Ignored, but its names are still checked (and the constants it mentions count as used).
+      checkNames(d.interval.lower, [], scope, diagnostics);
+      checkNames(d.interval.upper, [], scope, diagnostics);
       continue;
     }
     firstDomain = d.interval;
-    defaultDomain = bindInterval(d.interval, false, scope, source.text, diagnostics);
+    defaultDomain = bindInterval(d.interval, false, scope, isSound, source.text, diagnostics);
   }
 
-  // 5. Kernels.
+  // 4. Kernels.
   const kernels: DraftKernel[] = [];
   for (const sym of scope.all) {
     if (sym.kind !== 'kernel') continue;
     kernels.push(sym);
-    if (sym.decl.domain) sym.domain = bindInterval(sym.decl.domain, true, scope, source.text, diagnostics);
+    if (sym.decl.domain) sym.domain = bindInterval(sym.decl.domain, true, scope, isSound, source.text, diagnostics);
     else if (defaultDomain) sym.domain = defaultDomain;
     else if (!firstDomain && sym.name !== '') {
       diagnostics.push(makeDiagnostic('missing-domain', sym.nameRange, { name: sym.name }));
     }
-    sym.expectations = bindExpectations(sym.decl, scope, diagnostics);
+    sym.expectations = bindExpectations(sym.decl, scope, isSound, diagnostics);
     if (isSound(sym)) {
       try {
         sym.ir = lowerFunction(sym.decl.body, sym.decl.params.map((p) => p.text), scope);
       } catch (err) {
+        // Sizes were counted in step 2, so this is only a safety net should lowering and counting ever disagree.
         if (!(err instanceof IrTooLargeError)) throw err;
         diagnostics.push(makeDiagnostic('expression-too-complex', sym.decl.body.range, {
           what: 'has too many parts after expanding helper functions', limit: maxIrNodes,
@@ -182,7 +244,7 @@ export function bindFile(source: SourceFile): FileModel {
     }
   }
 
-  // 6. Unused constants and helpers.
+  // 5. Unused constants and helpers.
   for (const sym of scope.all) {
     if (sym.kind === 'kernel' || sym.name === '' || scope.symbols.get(sym.name) !== sym) continue;
     if (sym.references.length > 0) continue;

@@ -7,7 +7,7 @@ import type { Diagnostic } from '../diagnostics/types';
 import { makeDiagnostic } from '../diagnostics/make';
 import { suggest } from '../util/suggest';
 import { checkNames } from './resolveNames';
-import type { Scope } from './scope';
+import type { DraftSymbol, Scope } from './scope';
 import type { ResolvedExpectation } from './model';
 import { evaluateClosed, formatComplex } from './values';
 
@@ -25,7 +25,7 @@ export const expectationInfo: Readonly<Record<ExpectationName, ExpectationInfo>>
   bounded: { name: 'bounded', form: 'flag', description: 'The operator is bounded on L²[a, b] (integrable singularities allowed).' },
   'hilbert-schmidt': { name: 'hilbert-schmidt', form: 'flag', description: '∫∫ |K|² is finite: the operator is Hilbert–Schmidt, hence compact.' },
   norm: { name: 'norm', form: 'bound', description: 'The operator norm ‖T‖ is below the given bound (norm < x) or at most it (norm <= x).' },
-  rank: { name: 'rank', form: 'count', description: 'The operator has exactly (rank = n) or at most (rank <= n) n nonzero eigenvalues (a separable kernel).' },
+  rank: { name: 'rank', form: 'count', description: 'The range of the operator has dimension exactly n (rank = n) or at most n (rank <= n): a separable kernel with that many independent terms (for a Hermitian kernel, the number of nonzero eigenvalues).' },
   resolvent: { name: 'resolvent', form: 'point', description: 'μ lies in the resolvent set: μI − T is invertible, so μu − Tu = f has exactly one solution for every f.' },
 };
 
@@ -33,7 +33,10 @@ export function isExpectationName(name: string): name is ExpectationName {
   return Object.prototype.hasOwnProperty.call(expectationInfo, name);
 }
 
-export function bindExpectations(decl: KernelDecl, scope: Scope, diagnostics: Diagnostic[]): ResolvedExpectation[] {
+/** Checks the claims of one kernel; `isSound` says which definitions a claim's value may use (see bind.ts). */
+export function bindExpectations(
+  decl: KernelDecl, scope: Scope, isSound: (sym: DraftSymbol) => boolean, diagnostics: Diagnostic[],
+): ResolvedExpectation[] {
   const out: ResolvedExpectation[] = [];
   for (const clause of decl.expects) {
     for (const item of clause.items) {
@@ -60,7 +63,9 @@ export function bindExpectations(decl: KernelDecl, scope: Scope, diagnostics: Di
         problem(`“${item.name}” needs ${info.form === 'point' ? 'a value' : 'a comparison and a value'}: write e.g. “${example}”.`);
         continue;
       }
-      if (!checkNames(item.value, [], scope, diagnostics).ok) continue;
+      const names = checkNames(item.value, [], scope, diagnostics);
+      // A broken definition used here has its own error: no second one for the claim.
+      if (!names.ok || !names.uses.every(isSound)) continue;
       const v = evaluateClosed(item.value, scope, diagnostics);
       if (!v) continue;
       if (!Number.isFinite(v.re) || !Number.isFinite(v.im)) {

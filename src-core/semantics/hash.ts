@@ -5,6 +5,11 @@
  */
 import type { IrNode } from './ir';
 
+/** A number as text that tells -0 from 0 (String(-0) is "0", yet 1/-0 = -∞ and 1/0 = ∞). */
+function numberKey(x: number): string {
+  return Object.is(x, -0) ? '-0' : String(x);
+}
+
 export function canonicalIr(root: IrNode): string {
   const out: string[] = [];
   const stack: (IrNode | string)[] = [root];
@@ -15,7 +20,7 @@ export function canonicalIr(root: IrNode): string {
       continue;
     }
     switch (n.op) {
-      case 'const': out.push(`c(${n.re},${n.im})`); break;
+      case 'const': out.push(`c(${numberKey(n.re)},${numberKey(n.im)})`); break;
       case 'var': out.push(`v${n.slot}`); break;
       case 'neg': case 'not': out.push(`${n.op}(`); stack.push(')', n.a); break;
       case 'call': {

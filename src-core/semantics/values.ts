@@ -13,10 +13,12 @@ export function formatNumber(x: number): string {
   return String(Number(x.toPrecision(12)));
 }
 
+/** A complex value as a reader writes it: `2`, `i`, `-0.5i`, `1 + i`, `3 - 2i`. */
 export function formatComplex(v: ComplexValue): string {
+  const imaginary = (x: number) => (x === 1 ? 'i' : `${formatNumber(x)}i`);
   if (v.im === 0) return formatNumber(v.re);
-  if (v.re === 0) return `${formatNumber(v.im)}i`;
-  return `${formatNumber(v.re)} ${v.im < 0 ? '-' : '+'} ${formatNumber(Math.abs(v.im))}i`;
+  if (v.re === 0) return v.im === -1 ? '-i' : imaginary(v.im);
+  return `${formatNumber(v.re)} ${v.im < 0 ? '-' : '+'} ${imaginary(Math.abs(v.im))}`;
 }
 
 /** Evaluates a closed expression (no variables) that passed the name checks; null with a diagnostic on failure. */
