@@ -20,3 +20,4 @@ export { suggest } from './util/suggest';
 export * from './report';
 export * from './review';
 export * from './editing';
+export { setExpressionSimplifier, type ExpressionSimplifier } from './fixes/simplifier';

@@ -1,0 +1,46 @@
+/**
+ * The Kernwright extension: starts the bundled language server (dist/server.js, over IPC) for `kernwright`
+ * documents and adds two commands. Everything else (diagnostics, hovers, lenses, fixes, formatting) comes from the
+ * server.
+ */
+import * as path from 'node:path';
+import * as vscode from 'vscode';
+import { LanguageClient, TransportKind, type LanguageClientOptions, type ServerOptions } from 'vscode-languageclient/node';
+
+let client: LanguageClient | undefined;
+
+export async function activate(context: vscode.ExtensionContext): Promise<void> {
+  const serverModule = context.asAbsolutePath(path.join('dist', 'server.js'));
+  const serverOptions: ServerOptions = {
+    run: { module: serverModule, transport: TransportKind.ipc },
+    debug: { module: serverModule, transport: TransportKind.ipc, options: { execArgv: ['--nolazy', '--inspect=6019'] } },
+  };
+  const clientOptions: LanguageClientOptions = {
+    documentSelector: [{ language: 'kernwright' }],
+    initializationOptions: { showsFigures: true },
+  };
+  const figures = vscode.window.createOutputChannel('Kernwright figures');
+  const lc = new LanguageClient('kernwright', 'Kernwright', serverOptions, clientOptions);
+  client = lc;
+
+  context.subscriptions.push(
+    figures,
+    vscode.commands.registerCommand('kernwright.showFigures', async (uri?: string, kernel?: string) => {
+      const target = uri ?? vscode.window.activeTextEditor?.document.uri.toString();
+      if (!target) return;
+      const answer = await lc.sendRequest<{ text: string } | null>('kernwright/figures', { uri: target, kernel });
+      figures.clear();
+      figures.appendLine(answer?.text ?? 'No kernel figures for this file yet.');
+      figures.show(true);
+    }),
+    vscode.commands.registerCommand('kernwright.reanalyse', async () => {
+      await lc.sendRequest('kernwright/reanalyse', {});
+    }),
+  );
+  await lc.start();
+}
+
+export async function deactivate(): Promise<void> {
+  await client?.stop();
+  client = undefined;
+}
