@@ -1,11 +1,12 @@
 /**
  * The Kernwright extension: starts the bundled language server (dist/server.js, over IPC) for `kernwright`
- * documents and adds two commands. Everything else (diagnostics, hovers, lenses, fixes, formatting) comes from the
+ * documents, adds its commands and the spectrum view (pictures of the kernel under the cursor). Everything else (diagnostics, hovers, lenses, fixes, formatting) comes from the
  * server.
  */
 import * as path from 'node:path';
 import * as vscode from 'vscode';
 import { LanguageClient, TransportKind, type LanguageClientOptions, type ServerOptions } from 'vscode-languageclient/node';
+import { kernelDataRequest, registerSpectrumView, type KernelDataParams, type KernelDataReply } from './spectrumView';
 
 let client: LanguageClient | undefined;
 
@@ -32,11 +33,14 @@ export async function activate(context: vscode.ExtensionContext): Promise<void> 
       figures.clear();
       figures.appendLine(answer?.text ?? 'No kernel figures for this file yet.');
       figures.show(true);
+      // The summary above a kernel opens its pictures too.
+      if (kernel) await vscode.commands.executeCommand('kernwright.showSpectrum', target, kernel);
     }),
     vscode.commands.registerCommand('kernwright.reanalyse', async () => {
       await lc.sendRequest('kernwright/reanalyse', {});
     }),
   );
+  registerSpectrumView(context, (params: KernelDataParams) => lc.sendRequest<KernelDataReply | null>(kernelDataRequest, params));
   await lc.start();
 }
 

@@ -121,6 +121,11 @@ describe('bursts of edits', () => {
     const figures = await c.request<{ text: string }>('kernwright/figures', { uri, kernel: 'k' });
     // min(t, s) - t s on [0, 1]: eigenvalues 1/(n² π²); λ₁ = 1/π² ≈ 0.101321.
     expect(figures.text).toMatch(/λ₁\s+0\.10132/u);
+    // The spectrum view's data: the same kernel report, with samples of K for its heat map.
+    const data = await c.request<{ version: number; kernels: { report: { name: string; spectrum: { eigenvalues: { re: number }[] } } }[] }>(
+      'kernwright/kernelData', { uri, points: 16 });
+    expect(data.kernels.map((k) => k.report.name)).toEqual(['k']);
+    expect(Math.abs(data.kernels[0].report.spectrum.eigenvalues[0].re - 1 / Math.PI ** 2)).toBeLessThan(1e-10);
   });
 });
 

@@ -4,11 +4,13 @@
  * - `kernwright/reanalyse` {uri?} → null: recompute every open file from scratch (the kernel cache is cleared);
  * - `kernwright/analysisState` {uri} → {version, numericVersion, pending, state, elapsedMs}: where the analysis of a
  *   file stands (elapsedMs: the worker's time for the latest complete result);
+ * - `kernwright/kernelData` {uri, points?} → {uri, version, pending, kernels}: every kernel's report with the samples
+ *   its pictures need (the spectrum view in the extension draws them);
  * - `workspace/executeCommand` `kernwright.showFigures` [uri, kernel], for clients other than our VS Code
  *   extension (which shows the figures itself): answers the text and shows it as a message.
  */
 import { MessageType, ShowMessageNotification, type ExecuteCommandParams } from 'vscode-languageserver/node';
-import { kernelFiguresText } from '@kernwright/core';
+import { fileKernelPictureData, kernelFiguresText } from '@kernwright/core';
 import { guard, type ServerContext } from '../context';
 import type { WorkerClient } from '../workerClient';
 import { showFiguresCommand } from './codeLens';
@@ -17,6 +19,7 @@ export const figuresRequest = 'kernwright/figures';
 export const reanalyseRequest = 'kernwright/reanalyse';
 export const analysisStateRequest = 'kernwright/analysisState';
 export const crashWorkerTestRequest = 'kernwright/test/crashWorker';
+export const kernelDataRequest = 'kernwright/kernelData';
 
 function figures(ctx: ServerContext, uri: unknown, kernel: unknown): string | null {
   if (typeof uri !== 'string') return null;
@@ -37,6 +40,12 @@ export function registerCommands(ctx: ServerContext, worker: WorkerClient): void
   c.onRequest(reanalyseRequest, guard(ctx, reanalyseRequest, null, () => {
     ctx.analyzer.reanalyseAll(true);
     return null;
+  }));
+  c.onRequest(kernelDataRequest, guard(ctx, kernelDataRequest, null, (p: { uri?: unknown; points?: unknown } | null) => {
+    const st = typeof p?.uri === 'string' ? ctx.analyzer.get(p.uri) : undefined;
+    if (!st) return null;
+    const points = typeof p?.points === 'number' && Number.isFinite(p.points) ? Math.max(8, Math.min(96, Math.round(p.points))) : 40;
+    return { uri: p!.uri, version: st.version, pending: st.pending, kernels: fileKernelPictureData(st.view(), { points }) };
   }));
   c.onRequest(analysisStateRequest, guard(ctx, analysisStateRequest, null, (p: { uri?: unknown } | null) => {
     const st = typeof p?.uri === 'string' ? ctx.analyzer.get(p.uri) : undefined;
