@@ -34,7 +34,11 @@ export async function bundleCli(): Promise<Harness> {
     target: 'node20',
     format: 'cjs' as const,
     logLevel: 'warning' as const,
-    alias: { '@kernwright/core': path.join(repo, 'src-core', 'index.ts') },
+    alias: {
+      '@kernwright/core': path.join(repo, 'src-core', 'index.ts'),
+      // as in scripts/build.mjs: vega's optional canvas renderer cannot be bundled as CommonJS, and only SVG is drawn
+      'vega-canvas': path.join(repo, 'server', 'src', 'pictures', 'noCanvas.ts'),
+    },
   };
   await build({ ...common, entryPoints: [path.join(repo, 'server/src/cli/main.ts')], outfile: path.join(dir, 'cli.js') });
   await build({ ...common, entryPoints: [path.join(repo, 'server/src/cli/checkWorker.ts')], outfile: path.join(dir, 'checkWorker.js') });
