@@ -1,5 +1,6 @@
 /**
- * The spectral engine against published closed forms. Each case names its source beside it.
+ * The spectral engine against published closed forms. Each case names its source beside it; the formulas are
+ * standard, the section numbers are cited from memory.
  */
 import { describe, expect, it } from 'vitest';
 import { analyseKernel, bisect, honest } from './helpers';

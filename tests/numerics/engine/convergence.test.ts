@@ -4,6 +4,7 @@
  * the Second Kind, 1997, §3.7; common practice), so with the panels aligned to the kink, polynomial degree p on
  * smooth eigenfunctions gives faster-than-geometric decay in p; the plain Nyström method on the kinked kernel
  * min(t, s) only reaches O(n⁻²).
+ * (Book sections and problem numbers are cited from memory.)
  */
 import { describe, expect, it } from 'vitest';
 import { parse, bindFile } from '@kernwright/core';

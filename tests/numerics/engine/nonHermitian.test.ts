@@ -1,6 +1,7 @@
 /**
  * Non-Hermitian kernels: the norm is the largest singular value and may exceed the spectral radius; complex
  * eigenvalues are checked against mathjs `eigs` on an independent plain Nyström matrix.
+ * (Book sections and problem numbers are cited from memory.)
  */
 import { describe, expect, it } from 'vitest';
 import { create, all, type Complex } from 'mathjs';

@@ -3,6 +3,7 @@
  * with Applications, 1978, §9.1–9.2 and §8.6), checked as properties over random Hermitian kernels: the spectrum is
  * real and lies in [−‖T‖, ‖T‖], ‖T‖ equals the spectral radius (so ‖T‖ or −‖T‖ is an eigenvalue), and eigenfunctions
  * of distinct eigenvalues are orthogonal.
+ * (Book sections and problem numbers are cited from memory.)
  */
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';

@@ -2,6 +2,7 @@
  * Separable kernels worked by hand with the degenerate-kernel method: the nonzero eigenvalues of
  * K = Σ f_j(t) g_j(s) are those of M_ij = ∫ g_i f_j (K. Atkinson, The Numerical Solution of Integral Equations of
  * the Second Kind, 1997, §2.1). The hand computations are written out beside each case.
+ * (Book sections and problem numbers are cited from memory.)
  */
 import { describe, expect, it } from 'vitest';
 import { analyseKernel } from './helpers';

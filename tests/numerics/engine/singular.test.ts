@@ -3,6 +3,7 @@
  * checked against a reference computed here by the same Galerkin method at a much finer discretisation and much
  * finer singular quadrature (N = 338, 30 grading levels, 20 points per graded panel), which agrees with a still
  * finer quadrature (34 levels, 24 points) to 1e-13; the Hilbert–Schmidt norms are checked against closed forms.
+ * (Book sections and problem numbers are cited from memory.)
  */
 import { describe, expect, it } from 'vitest';
 import { analyseKernel, honest } from './helpers';
