@@ -24,6 +24,18 @@ function arityText(min: number, max: number): string {
   return `${min} to ${max} arguments`;
 }
 
+/** An unknown name, with a did-you-mean suggestion and its fix when a close candidate exists. */
+function unknownName(
+  kind: 'unknown-identifier' | 'unknown-function', name: string, range: Expr['range'], candidates: Iterable<string>,
+): Diagnostic {
+  const suggestion = suggest(name, candidates);
+  if (!suggestion) return makeDiagnostic(kind, range, { name, suggestion: '' });
+  return makeDiagnostic(kind, range, { name, suggestion: ` Did you mean “${suggestion}”?` }, {
+    fixes: [{ kind: 'did-you-mean', title: `Change to “${suggestion}”`, edits: [{ range, newText: suggestion }], preferred: true }],
+    figures: { suggestion },
+  });
+}
+
 export function checkNames(
   expr: Expr,
   params: readonly string[],
@@ -86,16 +98,7 @@ export function checkNames(
         } else if (isBuiltinFunction(e.name)) {
           report(makeDiagnostic('function-as-value', e.range, { name: e.name }));
         } else {
-          const suggestion = suggest(e.name, valueNames());
-          report(
-            makeDiagnostic('unknown-identifier', e.range, {
-              name: e.name,
-              suggestion: suggestion ? ` Did you mean “${suggestion}”?` : '',
-            }, suggestion ? {
-              fixes: [{ kind: 'did-you-mean', title: `Change to “${suggestion}”`, edits: [{ range: e.range, newText: suggestion }], preferred: true }],
-              figures: { suggestion },
-            } : {}),
-          );
+          report(unknownName('unknown-identifier', e.name, e.range, valueNames()));
         }
         break;
       }
@@ -129,16 +132,7 @@ export function checkNames(
         } else if (isBuiltinConstant(e.callee)) {
           report(makeDiagnostic('not-a-function', e.calleeRange, { name: e.callee, what: 'built-in constant' }));
         } else {
-          const suggestion = suggest(e.callee, functionNames());
-          report(
-            makeDiagnostic('unknown-function', e.calleeRange, {
-              name: e.callee,
-              suggestion: suggestion ? ` Did you mean “${suggestion}”?` : '',
-            }, suggestion ? {
-              fixes: [{ kind: 'did-you-mean', title: `Change to “${suggestion}”`, edits: [{ range: e.calleeRange, newText: suggestion }], preferred: true }],
-              figures: { suggestion },
-            } : {}),
-          );
+          report(unknownName('unknown-function', e.callee, e.calleeRange, functionNames()));
         }
         break;
       }

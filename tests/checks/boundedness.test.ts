@@ -3,6 +3,7 @@
  * in the kernels (|t − s|^(−α) grows like d^(−α) by construction) and the standard classes (common practice;
  * R. Kress, Linear Integral Equations, 3rd ed. 2014, §2.3: along a line, α < 1/2 Hilbert–Schmidt, α < 1 bounded).
  */
+// Citations of books and papers in this file (authors, years, sections) are given from memory.
 import { describe, expect, it } from 'vitest';
 import { analyse } from './helpers';
 

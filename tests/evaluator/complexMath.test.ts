@@ -3,6 +3,7 @@
  * mathjs is not precise enough to be the judge: near zeros, far out where its textbook formulas overflow, and on
  * branch cuts. (Away from those places crossCheck.test.ts compares them with mathjs operation by operation.)
  */
+// Citations of books and papers in this file (authors, years, sections) are given from memory.
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import {

@@ -17,6 +17,7 @@
  * kept in [1e-6, 3] in magnitude (or special values): complex.js squares the parts in abs and sign, which
  * underflows below 1e-154. Seeds are fixed so a failure reproduces.
  */
+// Citations of books and papers in this file (authors, years, sections) are given from memory.
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { compileKernel } from '../../src-core/semantics/evaluator';

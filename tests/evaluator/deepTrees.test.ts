@@ -3,6 +3,7 @@
  * interpreter are iterative, and conditionals nested deeper than the generator's block limit pick between eagerly
  * evaluated branches (same values). Expected values come from running the same double operations in a plain loop.
  */
+// Citations of books and papers in this file (authors, years, sections) are given from memory.
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import type { IrFunction, IrNode } from '../../src-core/semantics/ir';

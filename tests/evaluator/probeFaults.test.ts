@@ -3,6 +3,7 @@
  * Expected locations are facts of the formulas: log|t − s| is −∞ exactly on the diagonal; sqrt(t − 0.5) is not
  * real for t < 0.5; max(i·t, s) is undefined wherever i·t is not real.
  */
+// Citations of books and papers in this file (authors, years, sections) are given from memory.
 import { describe, expect, it } from 'vitest';
 import { compileKernel, probeFaults, type KernelFault } from '../../src-core/semantics/evaluator';
 import { probePoints } from '../../src-core/semantics/evaluator/probeFaults';

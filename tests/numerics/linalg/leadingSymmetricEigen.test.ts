@@ -1,3 +1,4 @@
+// Citations of books and papers in this file (authors, years, sections) are given from memory.
 import { describe, expect, it } from 'vitest';
 import { leadingSymmetricEigen, symmetricEigen } from '../../../src-core/numerics/linalg';
 import { randomSymmetric } from './helpers';

@@ -1,3 +1,4 @@
+// Citations of books and papers in this file (authors, years, sections) are given from memory.
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { collapsedTriangleRule, QuadratureInputError } from '../../../src-core/numerics/quadrature/index';
