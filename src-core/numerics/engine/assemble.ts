@@ -85,12 +85,14 @@ export function assembleGalerkin(
   const n = panels * q;
   const re = new Float64Array(n * n);
   const im = kernel.complex ? new Float64Array(n * n) : null;
-  let hsSquared = 0;
   let evaluations = 0;
-  let nonFinite = 0;
+  // [∫∫ |K|², count of non-finite values]: the projection functions add to it.
+  const tally = new Float64Array(2);
   const local = new Float64Array(q * q);
-  const localIm = new Float64Array(q * q);
+  const localIm = im ? new Float64Array(q * q) : null;
   const basisCache = new Map<string, Float64Array>();
+  // The loci with t and s exchanged: the rule of pair (P, Q) is the mirror image of the rule of (Q, P) for these.
+  const swapped: Locus[] = oblique.map((l) => ({ ...l, line: { ct: l.line.cs, cs: l.line.ct, c0: l.line.c0 } }));
   const basisAt = (nodes: Float64Array, p: number): Float64Array => {
     const key = `${p}:${nodes.length}:${nodes[0]}`;
     let b = basisCache.get(key);
@@ -100,109 +102,172 @@ export function assembleGalerkin(
     }
     return b;
   };
+  const scratch = new Scratch(!!im);
+  const ruleOptions = { order: d.order, singularLevels: d.singularLevels, gradedPoints: d.gradedPoints };
 
   for (let P = 0; P < panels; P++) {
     throwIfCancelled(token);
     for (let Q = 0; Q < panels; Q++) {
-      // Below the diagonal, use the mirror image of the rule above it, so that a Hermitian kernel gives a Galerkin
-      // matrix that is Hermitian to rounding, whatever the quadrature error.
+      // Below the diagonal, use the mirror image of the rule for the mirrored loci above it, so that a Hermitian
+      // kernel (whose loci are symmetric in t and s) gives a Galerkin matrix that is Hermitian to rounding, whatever
+      // the quadrature error, while a rule still follows loci that are not symmetric (t − s = c).
       const rule: PairRule = P <= Q
-        ? pairRule(d.breakpoints[P], d.breakpoints[P + 1], d.breakpoints[Q], d.breakpoints[Q + 1], oblique,
-          { order: d.order, singularLevels: d.singularLevels, gradedPoints: d.gradedPoints })
-        : mirrored(pairRule(d.breakpoints[Q], d.breakpoints[Q + 1], d.breakpoints[P], d.breakpoints[P + 1], oblique,
-          { order: d.order, singularLevels: d.singularLevels, gradedPoints: d.gradedPoints }));
+        ? pairRule(d.breakpoints[P], d.breakpoints[P + 1], d.breakpoints[Q], d.breakpoints[Q + 1], oblique, ruleOptions)
+        : mirrored(pairRule(d.breakpoints[Q], d.breakpoints[Q + 1], d.breakpoints[P], d.breakpoints[P + 1], swapped, ruleOptions));
       local.fill(0);
-      localIm.fill(0);
+      if (localIm) localIm.fill(0);
+      // The kernel is called once per pair, outside the projection loops: every analysed kernel is a different
+      // generated function, and keeping those calls out of the hot loops keeps the loops' optimised code valid
+      // from one kernel to the next.
       if ('tensor' in rule) {
         const { tNodes, tWeights, sNodes, sWeights } = rule.tensor;
-        const mt = tNodes.length;
-        const ms = sNodes.length;
-        const kr = new Float64Array(mt * ms);
-        const ki = im ? new Float64Array(mt * ms) : null;
+        const m = tNodes.length * sNodes.length;
+        const kr = scratch.values(m);
+        const ki = scratch.valuesIm(m);
         kernel.evaluateGrid(tNodes, sNodes, kr, ki);
-        evaluations += mt * ms;
-        const bt = basisAt(tNodes, P);
-        const bs = basisAt(sNodes, Q);
-        // Z = diag(wt) K diag(ws) Bs  (mt × q), then local = Btᵀ Z.
-        const zr = new Float64Array(mt * q);
-        const zi = ki ? new Float64Array(mt * q) : null;
-        for (let a = 0; a < mt; a++) {
-          for (let b = 0; b < ms; b++) {
-            let vr = kr[a * ms + b];
-            let vi = ki ? ki[a * ms + b] : 0;
-            if (!Number.isFinite(vr) || !Number.isFinite(vi)) { nonFinite++; vr = 0; vi = 0; }
-            const w = tWeights[a] * sWeights[b];
-            hsSquared += w * (vr * vr + vi * vi);
-            const cr = w * vr;
-            const ci = w * vi;
-            const rowB = b * q;
-            const rowZ = a * q;
-            for (let j = 0; j < q; j++) zr[rowZ + j] += cr * bs[rowB + j];
-            if (zi) for (let j = 0; j < q; j++) zi[rowZ + j] += ci * bs[rowB + j];
-          }
-        }
-        for (let a = 0; a < mt; a++) {
-          const rowZ = a * q;
-          const rowB = a * q;
-          for (let i = 0; i < q; i++) {
-            const bti = bt[rowB + i];
-            if (bti === 0) continue;
-            const base = i * q;
-            for (let j = 0; j < q; j++) local[base + j] += bti * zr[rowZ + j];
-            if (zi) for (let j = 0; j < q; j++) localIm[base + j] += bti * zi[rowZ + j];
-          }
-        }
+        evaluations += m;
+        projectTensor(kr, ki, tWeights, sWeights, basisAt(tNodes, P), basisAt(sNodes, Q), q,
+          scratch.z(tNodes.length * q), scratch.zIm(tNodes.length * q), local, localIm, tally);
       } else {
         const { unit, t0, s0, ht, hs } = rule;
         const m = unit.w.length;
-        const tq = new Float64Array(m);
-        const sq = new Float64Array(m);
-        for (let k = 0; k < m; k++) {
-          tq[k] = t0 + ht * unit.x[k];
-          sq[k] = s0 + hs * unit.y[k];
-        }
-        const kr = new Float64Array(m);
-        const ki = im ? new Float64Array(m) : null;
+        const tq = scratch.tPoints(m);
+        const sq = scratch.sPoints(m);
+        mapUnitPoints(unit.x, unit.y, t0, s0, ht, hs, tq, sq);
+        const kr = scratch.values(m);
+        const ki = scratch.valuesIm(m);
         kernel.evaluateColumns([tq, sq], kr, ki);
         evaluations += m;
         const { bx, by } = unitBasis(unit, d.degree);
-        const area = ht * hs;
-        const scale = Math.sqrt(area);
-        for (let k = 0; k < m; k++) {
-          let vr = kr[k];
-          let vi = ki ? ki[k] : 0;
-          if (!Number.isFinite(vr) || !Number.isFinite(vi)) {
-            // On a singular locus to within rounding: a set of measure zero for an integrable singularity.
-            if (!unit.nearSingular[k]) nonFinite++;
-            vr = 0; vi = 0;
-          }
-          const w = unit.w[k];
-          hsSquared += area * w * (vr * vr + vi * vi);
-          const cr = scale * w * vr;
-          const row = k * q;
-          for (let i = 0; i < q; i++) {
-            const fr = cr * bx[row + i];
-            const base = i * q;
-            for (let j = 0; j < q; j++) local[base + j] += fr * by[row + j];
-          }
-          if (im) {
-            const ci = scale * w * vi;
-            for (let i = 0; i < q; i++) {
-              const fi = ci * bx[row + i];
-              const base = i * q;
-              for (let j = 0; j < q; j++) localIm[base + j] += fi * by[row + j];
-            }
-          }
-        }
+        projectUnit(kr, ki, unit.w, unit.nearSingular, bx, by, q, ht * hs, local, localIm, tally);
       }
-      for (let i = 0; i < q; i++) {
-        const row = (P * q + i) * n + Q * q;
-        for (let j = 0; j < q; j++) {
-          re[row + j] = local[i * q + j];
-          if (im) im[row + j] = localIm[i * q + j];
-        }
+      scatterBlock(local, localIm, re, im, n, q, P, Q);
+    }
+  }
+  return { n, re, im, hsSquared: tally[0], evaluations, nonFinite: tally[1], discretisation: d };
+}
+
+/** Reusable work arrays of one assembly (views of the needed length over buffers that only grow). */
+class Scratch {
+  private buffers: Float64Array[] = [new Float64Array(0), new Float64Array(0), new Float64Array(0), new Float64Array(0), new Float64Array(0), new Float64Array(0)];
+  constructor(private readonly complex: boolean) {}
+  private take(slot: number, length: number, zero: boolean): Float64Array {
+    if (this.buffers[slot].length < length) this.buffers[slot] = new Float64Array(Math.max(length, 2 * this.buffers[slot].length));
+    const view = this.buffers[slot].subarray(0, length);
+    if (zero) view.fill(0);
+    return view;
+  }
+  values(m: number): Float64Array { return this.take(0, m, false); }
+  valuesIm(m: number): Float64Array | null { return this.complex ? this.take(1, m, false) : null; }
+  z(m: number): Float64Array { return this.take(2, m, true); }
+  zIm(m: number): Float64Array | null { return this.complex ? this.take(3, m, true) : null; }
+  tPoints(m: number): Float64Array { return this.take(4, m, false); }
+  sPoints(m: number): Float64Array { return this.take(5, m, false); }
+}
+
+function mapUnitPoints(
+  x: Float64Array, y: Float64Array, t0: number, s0: number, ht: number, hs: number, tq: Float64Array, sq: Float64Array,
+): void {
+  for (let k = 0; k < tq.length; k++) {
+    tq[k] = t0 + ht * x[k];
+    sq[k] = s0 + hs * y[k];
+  }
+}
+
+/**
+ * Tensor rule: local += Btᵀ diag(wt) K diag(ws) Bs, through Z = diag(wt) K diag(ws) Bs (mt × q). Adds ∫∫ |K|² to
+ * tally[0] and the number of non-finite values (taken as 0) to tally[1].
+ */
+function projectTensor(
+  kr: Float64Array, ki: Float64Array | null, tWeights: Float64Array, sWeights: Float64Array,
+  bt: Float64Array, bs: Float64Array, q: number, zr: Float64Array, zi: Float64Array | null,
+  local: Float64Array, localIm: Float64Array | null, tally: Float64Array,
+): void {
+  const mt = tWeights.length;
+  const ms = sWeights.length;
+  let hs2 = 0;
+  let bad = 0;
+  for (let a = 0; a < mt; a++) {
+    const rowZ = a * q;
+    for (let b = 0; b < ms; b++) {
+      let vr = kr[a * ms + b];
+      let vi = ki ? ki[a * ms + b] : 0;
+      if (!Number.isFinite(vr) || !Number.isFinite(vi)) { bad++; vr = 0; vi = 0; }
+      const w = tWeights[a] * sWeights[b];
+      hs2 += w * (vr * vr + vi * vi);
+      const cr = w * vr;
+      const rowB = b * q;
+      for (let j = 0; j < q; j++) zr[rowZ + j] += cr * bs[rowB + j];
+      if (zi) {
+        const ci = w * vi;
+        for (let j = 0; j < q; j++) zi[rowZ + j] += ci * bs[rowB + j];
       }
     }
   }
-  return { n, re, im, hsSquared, evaluations, nonFinite, discretisation: d };
+  for (let a = 0; a < mt; a++) {
+    const row = a * q;
+    for (let i = 0; i < q; i++) {
+      const bti = bt[row + i];
+      if (bti === 0) continue;
+      const base = i * q;
+      for (let j = 0; j < q; j++) local[base + j] += bti * zr[row + j];
+      if (zi && localIm) for (let j = 0; j < q; j++) localIm[base + j] += bti * zi[row + j];
+    }
+  }
+  tally[0] += hs2;
+  tally[1] += bad;
+}
+
+/**
+ * Rule on the unit square mapped onto the pair (area = ht·hs): local += Σ_k w_k K_k b_x(k) b_y(k)ᵀ, the basis scaled
+ * by 1/√h per direction. A value that is not finite within rounding of a singular locus counts as 0 (a set of
+ * measure zero for an integrable singularity); elsewhere it is also counted in tally[1].
+ */
+function projectUnit(
+  kr: Float64Array, ki: Float64Array | null, w: Float64Array, nearSingular: Uint8Array,
+  bx: Float64Array, by: Float64Array, q: number, area: number,
+  local: Float64Array, localIm: Float64Array | null, tally: Float64Array,
+): void {
+  const scale = Math.sqrt(area);
+  let hs2 = 0;
+  let bad = 0;
+  for (let k = 0; k < w.length; k++) {
+    let vr = kr[k];
+    let vi = ki ? ki[k] : 0;
+    if (!Number.isFinite(vr) || !Number.isFinite(vi)) {
+      if (!nearSingular[k]) bad++;
+      vr = 0; vi = 0;
+    }
+    hs2 += area * w[k] * (vr * vr + vi * vi);
+    const cr = scale * w[k] * vr;
+    const row = k * q;
+    for (let i = 0; i < q; i++) {
+      const fr = cr * bx[row + i];
+      const base = i * q;
+      for (let j = 0; j < q; j++) local[base + j] += fr * by[row + j];
+    }
+    if (localIm) {
+      const ci = scale * w[k] * vi;
+      for (let i = 0; i < q; i++) {
+        const fi = ci * bx[row + i];
+        const base = i * q;
+        for (let j = 0; j < q; j++) localIm[base + j] += fi * by[row + j];
+      }
+    }
+  }
+  tally[0] += hs2;
+  tally[1] += bad;
+}
+
+function scatterBlock(
+  local: Float64Array, localIm: Float64Array | null, re: Float64Array, im: Float64Array | null,
+  n: number, q: number, P: number, Q: number,
+): void {
+  for (let i = 0; i < q; i++) {
+    const row = (P * q + i) * n + Q * q;
+    for (let j = 0; j < q; j++) {
+      re[row + j] = local[i * q + j];
+      if (im && localIm) im[row + j] = localIm[i * q + j];
+    }
+  }
 }

@@ -4,6 +4,15 @@
  * geometrically toward points where the kernel is singular (the h-part of hp-refinement: W. Gui & I. Babuška,
  * Numer. Math. 49 (1986); C. Schwab, p- and hp-Finite Element Methods, 1998, ch. 4), because eigenfunctions of
  * weakly singular kernels are themselves singular there (at the ends of the interval for a diagonal singularity).
+ *
+ * An oblique kink or jump (on a line such as t − s = c) is integrated exactly by the cut quadrature of pairRule.ts,
+ * but it leaves a trace in the eigenfunctions: where the line enters or leaves the square at s = a (say, at t = a + c),
+ * (Tφ)(t) = ∫ K(t, s) φ(s) ds changes the number of smooth pieces it integrates over, so Tφ, and with it every
+ * eigenfunction, loses smoothness at t = a + c (a jump in the second derivative behind a kink, in the first behind a
+ * jump). Applying T again carries that point along the line to a + 2c, two derivatives smoother. Breakpoints at
+ * the entry points and at their first images keep every panel's eigenfunction pieces smooth enough for p-refinement
+ * to converge quickly (the same reason panels respect axis-parallel loci; common practice for piecewise-polynomial
+ * Galerkin methods, stated here from the argument above rather than from a source).
  */
 import { gradedPanels } from '../quadrature';
 import type { Line, Locus } from './loci';
@@ -41,6 +50,21 @@ function boundaryCoordinates(l: Line, a: number, b: number): number[] {
   return out.map((x) => Math.min(b, Math.max(a, x)));
 }
 
+/**
+ * Points where the eigenfunctions of a kernel with a kink or jump on the oblique line l lose smoothness: where l
+ * meets the boundary of the square, and those points carried once along l in either direction (t ↦ s and s ↦ t).
+ */
+export function obliqueTracePoints(l: Line, a: number, b: number): number[] {
+  const inside = (x: number) => x > a + 1e-12 * (b - a) && x < b - 1e-12 * (b - a);
+  const seeds = boundaryCoordinates(l, a, b).filter(inside);
+  const out = [...seeds];
+  for (const x of seeds) {
+    out.push(-(l.cs * x + l.c0) / l.ct); // the line at s = x
+    out.push(-(l.ct * x + l.c0) / l.cs); // the line at t = x
+  }
+  return out.filter(inside);
+}
+
 export function planMesh(loci: readonly Locus[], a: number, b: number): MeshPlan {
   const scale = b - a;
   const base = [a, b];
@@ -52,6 +76,8 @@ export function planMesh(loci: readonly Locus[], a: number, b: number): MeshPlan
       if (kind === 'singular') grade.push(Math.min(b, Math.max(a, axis)));
     } else if (kind === 'singular') {
       grade.push(...boundaryCoordinates(line, a, b));
+    } else {
+      base.push(...obliqueTracePoints(line, a, b));
     }
   }
   const baseSorted = uniqueSorted(base, scale);
