@@ -5,8 +5,9 @@
  * complex eigensolver is used and the norm is the largest singular value.
  */
 import {
-  generalEigen, hermitianDefect, hermitianEigen, singularValues, symmetricEigen,
+  generalEigen, hermitianDefect, hermitianEigen, largestSingularValue, symmetricEigen,
 } from '../linalg';
+import { hessenbergEigenvalues, hessenbergEigenvector, hessenbergReduce } from '../linalg/realEigenvalues';
 import type { GalerkinMatrix } from './assemble';
 
 export interface LevelEigenpair {
@@ -85,6 +86,8 @@ export function solveLevel(matrix: GalerkinMatrix, keep: number, forceHermitian 
     };
   }
 
+  const sigmaMax = largestSingularValue(re, im, n);
+  if (!im) return solveRealGeneral(matrix, count, defect, frobenius, sigmaMax);
   const e = generalEigen(re, im, n);
   const order = Array.from(e.valuesRe.keys()).sort(
     (x, y) => Math.hypot(e.valuesRe[y], e.valuesIm[y]) - Math.hypot(e.valuesRe[x], e.valuesIm[x]),
@@ -92,11 +95,42 @@ export function solveLevel(matrix: GalerkinMatrix, keep: number, forceHermitian 
   const pairs = order.slice(0, count).map((k) => ({
     re: e.valuesRe[k], im: e.valuesIm[k], vecRe: column(e.vectorsRe, n, k), vecIm: column(e.vectorsIm, n, k),
   }));
-  const sv = singularValues(re, im, n, n);
   return {
     matrix, hermitian, defect, pairs,
     allRe: Float64Array.from(order.map((k) => e.valuesRe[k])),
     allIm: Float64Array.from(order.map((k) => e.valuesIm[k])),
-    sigmaMax: sv[0] ?? 0, frobenius, converged: e.converged,
+    sigmaMax, frobenius, converged: e.converged,
+  };
+}
+
+/**
+ * A real non-Hermitian matrix: every level needs all eigenvalues (to follow each one from level to level), but only
+ * the finest level's leading eigenvectors are ever read. So the values come from the values-only Francis QR on the
+ * Hessenberg form, and each leading vector from inverse iteration on that form when it is first read.
+ */
+function solveRealGeneral(matrix: GalerkinMatrix, count: number, defect: number, frobenius: number, sigmaMax: number): LevelSolution {
+  const { n, re } = matrix;
+  const form = hessenbergReduce(re, n);
+  const values = hessenbergEigenvalues(Float64Array.from(form.h), n);
+  const order = Array.from(values.re.keys()).sort(
+    (x, y) => Math.hypot(values.re[y], values.im[y]) - Math.hypot(values.re[x], values.im[x])
+      || values.re[y] - values.re[x] || values.im[y] - values.im[x],
+  );
+  const pairs: LevelEigenpair[] = order.slice(0, count).map((k) => {
+    const pairRe = values.re[k];
+    const pairIm = values.im[k];
+    let vec: { re: Float64Array; im: Float64Array } | null = null;
+    return {
+      re: pairRe,
+      im: pairIm,
+      get vecRe() { return (vec ??= hessenbergEigenvector(form, pairRe, pairIm)).re; },
+      get vecIm() { return (vec ??= hessenbergEigenvector(form, pairRe, pairIm)).im; },
+    };
+  });
+  return {
+    matrix, hermitian: false, defect, pairs,
+    allRe: Float64Array.from(order.map((k) => values.re[k])),
+    allIm: Float64Array.from(order.map((k) => values.im[k])),
+    sigmaMax, frobenius, converged: values.converged,
   };
 }

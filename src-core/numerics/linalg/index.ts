@@ -8,6 +8,6 @@
 export { symmetricEigen, type SymmetricEigen } from './symmetricEigen';
 export { hermitianEigen, type HermitianEigen } from './hermitianEigen';
 export { generalEigen, type GeneralEigen } from './generalEigen';
-export { singularValues } from './singularValues';
+export { singularValues, largestSingularValue } from './singularValues';
 export { leadingSymmetricEigen, type LeadingEigen, type LeadingEigenOptions } from './leadingSymmetricEigen';
 export { matmul, transpose, hermitianDefect, frobeniusNorm, identity } from './dense';

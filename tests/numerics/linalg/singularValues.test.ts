@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { eigs } from 'mathjs';
-import { frobeniusNorm, singularValues } from '../../../src-core/numerics/linalg';
+import { frobeniusNorm, largestSingularValue, singularValues } from '../../../src-core/numerics/linalg';
 import { adjoint, cmatmul, mathjsValues, randomMatrix, toMathjs } from './helpers';
 
 /** Square roots of the eigenvalues of AᴴA (cols×cols), descending, computed by mathjs. */
@@ -84,5 +84,29 @@ describe('singularValues', () => {
     ['a mismatched imaginary part', () => singularValues(new Float64Array(6), new Float64Array(4), 2, 3), /im must hold 2×3 = 6 entries.*got 4/],
   ])('rejects %s with a precise message', (_name, call, message) => {
     expect(call).toThrow(message);
+  });
+});
+
+describe('largestSingularValue (Lanczos on AᵀA)', () => {
+  it('equals the first of all singular values for real and complex matrices above the dense cut-off', () => {
+    for (const [n, seed] of [[65, 1], [120, 2], [200, 3]] as const) {
+      const re = randomMatrix(n, n, 2100 + seed);
+      const im = randomMatrix(n, n, 2200 + seed);
+      const real = singularValues(re, null, n, n)[0];
+      const complex = singularValues(re, im, n, n)[0];
+      expect(Math.abs(largestSingularValue(re, null, n) - real)).toBeLessThan(1e-12 * real);
+      expect(Math.abs(largestSingularValue(re, im, n) - complex)).toBeLessThan(1e-12 * complex);
+    }
+  });
+
+  it('is exact to rounding when the two largest singular values coincide (a cluster Lanczos must not mis-read)', () => {
+    const n = 100;
+    // A = U diag(3, 3, 2.999999, 1, …) with U a permutation-with-signs: singular values known exactly.
+    const re = new Float64Array(n * n);
+    for (let i = 0; i < n; i++) {
+      const sigma = i === 0 || i === 1 ? 3 : i === 2 ? 2.999999 : 1 / (1 + i);
+      re[((i * 37) % n) * n + i] = (i % 2 === 0 ? 1 : -1) * sigma;
+    }
+    expect(Math.abs(largestSingularValue(re, null, n) - 3)).toBeLessThan(1e-13 * 3);
   });
 });
