@@ -91,19 +91,22 @@ export function planMesh(loci: readonly Locus[], a: number, b: number): MeshPlan
 }
 
 /**
- * Breakpoints of a level: each base interval is split into `split` equal parts and graded with `levels` geometric
- * levels toward each grade point at its ends.
+ * Breakpoints of a level: each base interval is split into equal parts no longer than the longest base interval
+ * divided by `split` (so short intervals between nearby loci are not cut further while the long ones are), and
+ * graded with `levels` geometric levels toward each grade point at its ends.
  */
 export function meshBreakpoints(plan: MeshPlan, split: number, levels: number): number[] {
   const scale = plan.b - plan.a;
   const isGrade = (x: number) => plan.gradePoints.some((g) => Math.abs(g - x) <= 1e-12 * scale);
   const out: number[] = [plan.base[0]];
+  let longest = 0;
+  for (let k = 0; k + 1 < plan.base.length; k++) longest = Math.max(longest, plan.base[k + 1] - plan.base[k]);
   for (let k = 0; k + 1 < plan.base.length; k++) {
     const x0 = plan.base[k];
     const x1 = plan.base[k + 1];
     const towardA = levels > 0 && isGrade(x0);
     const towardB = levels > 0 && isGrade(x1);
-    const pieces = split > 1 ? split : 1;
+    const pieces = split > 1 ? Math.max(1, Math.ceil((split * (x1 - x0)) / longest - 1e-9)) : 1;
     for (let j = 0; j < pieces; j++) {
       const y0 = x0 + ((x1 - x0) * j) / pieces;
       const y1 = j + 1 === pieces ? x1 : x0 + ((x1 - x0) * (j + 1)) / pieces;
