@@ -64,7 +64,9 @@ function mirrored(rule: PairRule): PairRule {
   }
   let unit = mirrors.get(rule.unit);
   if (!unit) {
-    unit = { x: rule.unit.y, y: rule.unit.x, w: rule.unit.w, nearSingular: rule.unit.nearSingular };
+    const blocks = Int32Array.from(rule.unit.blocks);
+    for (let b = 3; b < blocks.length; b += 4) blocks[b] = blocks[b] === 1 ? 2 : blocks[b] === 2 ? 1 : 0;
+    unit = { x: rule.unit.y, y: rule.unit.x, w: rule.unit.w, nearSingular: rule.unit.nearSingular, blocks };
     mirrors.set(rule.unit, unit);
   }
   return { unit, t0: rule.s0, s0: rule.t0, ht: rule.hs, hs: rule.ht };
@@ -139,7 +141,7 @@ export function assembleGalerkin(
         kernel.evaluateColumns([tq, sq], kr, ki);
         evaluations += m;
         const { bx, by } = unitBasis(unit, d.degree);
-        projectUnit(kr, ki, unit.w, unit.nearSingular, bx, by, q, ht * hs, local, localIm, tally);
+        projectUnit(kr, ki, unit, bx, by, q, ht * hs, local, localIm, tally, scratch.z(q), scratch.zIm(q));
       }
       scatterBlock(local, localIm, re, im, n, q, P, Q);
     }
@@ -222,15 +224,21 @@ function projectTensor(
  * Rule on the unit square mapped onto the pair (area = ht·hs): local += Σ_k w_k K_k b_x(k) b_y(k)ᵀ, the basis scaled
  * by 1/√h per direction. A value that is not finite within rounding of a singular locus counts as 0 (a set of
  * measure zero for an integrable singularity); elsewhere it is also counted in tally[1].
+ *
+ * Rows of points that share x (or y) are summed first: Σ_c w K b_y over the row, then one outer product with the
+ * row's b_x, which costs cols·q + q² per row instead of cols·q² (the rule's blocks say which rows allow it).
  */
 function projectUnit(
-  kr: Float64Array, ki: Float64Array | null, w: Float64Array, nearSingular: Uint8Array,
+  kr: Float64Array, ki: Float64Array | null, unit: UnitPairRule,
   bx: Float64Array, by: Float64Array, q: number, area: number,
   local: Float64Array, localIm: Float64Array | null, tally: Float64Array,
+  zr: Float64Array, zi: Float64Array | null,
 ): void {
+  const { w, nearSingular, blocks } = unit;
   const scale = Math.sqrt(area);
   let hs2 = 0;
   let bad = 0;
+  // Weighted values c_k = √area · w_k · K_k, written over kr / ki (the caller's scratch), non-finite ones as 0.
   for (let k = 0; k < w.length; k++) {
     let vr = kr[k];
     let vi = ki ? ki[k] : 0;
@@ -239,24 +247,70 @@ function projectUnit(
       vr = 0; vi = 0;
     }
     hs2 += area * w[k] * (vr * vr + vi * vi);
-    const cr = scale * w[k] * vr;
-    const row = k * q;
-    for (let i = 0; i < q; i++) {
-      const fr = cr * bx[row + i];
-      const base = i * q;
-      for (let j = 0; j < q; j++) local[base + j] += fr * by[row + j];
+    kr[k] = scale * w[k] * vr;
+    if (ki) ki[k] = scale * w[k] * vi;
+  }
+  for (let b = 0; b < blocks.length; b += 4) {
+    const start = blocks[b];
+    const rows = blocks[b + 1];
+    const cols = blocks[b + 2];
+    const axis = blocks[b + 3];
+    if (axis === 0) {
+      rankOneUpdates(kr, bx, by, q, start, start + rows * cols, local);
+      if (ki && localIm) rankOneUpdates(ki, bx, by, q, start, start + rows * cols, localIm);
+      continue;
     }
-    if (localIm) {
-      const ci = scale * w[k] * vi;
-      for (let i = 0; i < q; i++) {
-        const fi = ci * bx[row + i];
-        const base = i * q;
-        for (let j = 0; j < q; j++) localIm[base + j] += fi * by[row + j];
+    // axis 1: b_x is the row's; sum c·b_y along the row. axis 2: the other way round (local[i][j] += z_i b_y,row[j]).
+    const along = axis === 1 ? by : bx;
+    const fixed = axis === 1 ? bx : by;
+    for (let r = 0; r < rows; r++) {
+      const k0 = start + r * cols;
+      rowSum(kr, along, q, k0, cols, zr);
+      if (axis === 1) outerAdd(fixed, k0 * q, zr, 0, q, local);
+      else outerAdd(zr, 0, fixed, k0 * q, q, local);
+      if (ki && localIm && zi) {
+        rowSum(ki, along, q, k0, cols, zi);
+        if (axis === 1) outerAdd(fixed, k0 * q, zi, 0, q, localIm);
+        else outerAdd(zi, 0, fixed, k0 * q, q, localIm);
       }
     }
   }
   tally[0] += hs2;
   tally[1] += bad;
+}
+
+/** local += Σ_{k in [from, to)} c_k b_x(k) b_y(k)ᵀ. */
+function rankOneUpdates(c: Float64Array, bx: Float64Array, by: Float64Array, q: number, from: number, to: number, local: Float64Array): void {
+  for (let k = from; k < to; k++) {
+    const ck = c[k];
+    if (ck === 0) continue;
+    const row = k * q;
+    for (let i = 0; i < q; i++) {
+      const f = ck * bx[row + i];
+      const base = i * q;
+      for (let j = 0; j < q; j++) local[base + j] += f * by[row + j];
+    }
+  }
+}
+
+/** z = Σ_{c < cols} v_{k0+c} · basis(k0 + c) (q entries). */
+function rowSum(v: Float64Array, basis: Float64Array, q: number, k0: number, cols: number, z: Float64Array): void {
+  z.fill(0, 0, q);
+  for (let c = 0; c < cols; c++) {
+    const f = v[k0 + c];
+    const row = (k0 + c) * q;
+    for (let j = 0; j < q; j++) z[j] += f * basis[row + j];
+  }
+}
+
+/** local[i][j] += a[aOff + i] · b[bOff + j]. */
+function outerAdd(a: Float64Array, aOff: number, b: Float64Array, bOff: number, q: number, local: Float64Array): void {
+  for (let i = 0; i < q; i++) {
+    const f = a[aOff + i];
+    if (f === 0) continue;
+    const base = i * q;
+    for (let j = 0; j < q; j++) local[base + j] += f * b[bOff + j];
+  }
 }
 
 function scatterBlock(

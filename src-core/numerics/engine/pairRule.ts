@@ -126,6 +126,36 @@ export interface UnitPairRule {
   readonly w: Float64Array;
   /** True for points within rounding distance of a singular locus (a value there that is not finite counts as 0). */
   readonly nearSingular: Uint8Array;
+  /**
+   * The rule's points come in blocks of rows (one block per triangle, points start + r·cols + c), four numbers per
+   * block: start, rows, cols, and which coordinate is the same for every point of a row (1: x, 2: y, 0: neither).
+   * A triangle whose edge opposite the collapsed vertex is vertical has x fixed along each row of its collapsed
+   * rule (horizontal: y), which lets the Galerkin projection sum a row before multiplying by the basis in x (y).
+   */
+  readonly blocks: Int32Array;
+}
+
+/** The triangle with its vertices turned so that v1–v2 is an axis-parallel edge, when it has one. */
+function axisEdgeLast(v0: Vec2, v1: Vec2, v2: Vec2): [Vec2, Vec2, Vec2] {
+  const parallel = (a: Vec2, b: Vec2) => a[0] === b[0] || a[1] === b[1];
+  if (parallel(v1, v2)) return [v0, v1, v2];
+  if (parallel(v2, v0)) return [v1, v2, v0];
+  if (parallel(v0, v1)) return [v2, v0, v1];
+  return [v0, v1, v2];
+}
+
+/** 1 when x is the same along every row of the block, 2 when y is, else 0 (checked on the points themselves). */
+function rowAxis(x: Float64Array, y: Float64Array, start: number, rows: number, cols: number): number {
+  let xFixed = true;
+  let yFixed = true;
+  for (let r = 0; r < rows && (xFixed || yFixed); r++) {
+    const k0 = start + r * cols;
+    for (let c = 1; c < cols; c++) {
+      if (x[k0 + c] !== x[k0]) xFixed = false;
+      if (y[k0 + c] !== y[k0]) yFixed = false;
+    }
+  }
+  return xFixed ? 1 : yFixed ? 2 : 0;
 }
 
 const unitRules = new Map<string, UnitPairRule>();
@@ -146,13 +176,21 @@ function unitRule(crossing: readonly { line: Line; kind: Locus['kind'] }[], touc
   const ys: number[] = [];
   const ws: number[] = [];
   const near: number[] = [];
+  const blocks: number[] = [];
   for (const poly of pieces) {
     for (const tri of trianglesOfPiece(poly, singular, 1e-12)) {
-      const rule = collapsedTriangleRule(tri.v0, tri.v1, tri.v2, options.order,
+      // A triangle without a singular edge or vertex may be collapsed toward any vertex: pick one whose opposite
+      // edge is axis-parallel, so that the rule's rows share one coordinate (see UnitPairRule.blocks).
+      const [v0, v1, v2] = tri.grade === 'none' ? axisEdgeLast(tri.v0, tri.v1, tri.v2) : [tri.v0, tri.v1, tri.v2];
+      const rule = collapsedTriangleRule(v0, v1, v2, options.order,
         tri.grade === 'edge' ? { gradeTowardEdge: { levels: options.singularLevels, pointsPerPanel: options.gradedPoints, minDistance: 0 } }
           : tri.grade === 'vertex'
             ? { gradeTowardVertex: { levels: options.singularLevels, pointsPerPanel: options.gradedPoints, minDistance: 0 } }
             : undefined);
+      const start = xs.length;
+      const cols = options.order;
+      const rows = rule.w.length / cols;
+      blocks.push(start, rows, cols, rowAxis(rule.x, rule.y, 0, rows, cols));
       for (let k = 0; k < rule.w.length; k++) {
         xs.push(rule.x[k]);
         ys.push(rule.y[k]);
@@ -163,5 +201,8 @@ function unitRule(crossing: readonly { line: Line; kind: Locus['kind'] }[], touc
       }
     }
   }
-  return { x: Float64Array.from(xs), y: Float64Array.from(ys), w: Float64Array.from(ws), nearSingular: Uint8Array.from(near) };
+  return {
+    x: Float64Array.from(xs), y: Float64Array.from(ys), w: Float64Array.from(ws), nearSingular: Uint8Array.from(near),
+    blocks: Int32Array.from(blocks),
+  };
 }
