@@ -8,6 +8,8 @@
  * 3. Hover and completion latency while a long numerical analysis runs (the caches cleared, 50 kernels): requests
  *    must not wait behind it.
  * 4. The server's peak memory (VmHWM of the process, worker thread included).
+ * 5. The first edits after opening a file and pausing, on fresh servers with and without the worker's idle-time
+ *    warm-up, side by side.
  *
  * Targets: first stage p95 < 20 ms; complete numerical diagnostics for the examples p95 < 300 ms; hover < 20 ms once
  * cached; requests during an analysis as fast as without one. Figures are printed, not asserted (the machine may be
@@ -181,4 +183,28 @@ export async function run(): Promise<void> {
   } finally {
     await c.stop();
   }
+
+  // 4. First edits after opening a file and a pause, on a fresh server with and without the worker's idle-time
+  //    warm-up (side by side in this run): the first analyses of each numerical path are the slow ones.
+  const pauseMs = 6000;
+  const firstEdits: Record<string, number[]> = {};
+  for (const [label, env] of [['warm-up on', {}], ['warm-up off', { KERNWRIGHT_NO_WARMUP: '1' }]] as const) {
+    const fresh = await TestClient.start({ settings: { numerics: { debounceMs } }, env });
+    try {
+      const uri = await fresh.openFile('examples/pollen-dispersal.kw');
+      await fresh.settled(uri, 120_000);
+      await new Promise((r) => setTimeout(r, pauseMs));
+      const own: EditTimes = { syntax: [], numeric: [], worker: [] };
+      await timeEdits(fresh, uri, 12, own);
+      firstEdits[label] = own.worker;
+    } finally {
+      await fresh.stop();
+    }
+  }
+  const on = firstEdits['warm-up on'];
+  const off = firstEdits['warm-up off'];
+  console.log(`first 12 edits of pollen-dispersal.kw after opening it and a ${pauseMs / 1000} s pause, fresh server each:`);
+  console.log(summary('  worker time per edit, warm-up on', on));
+  console.log(summary('  worker time per edit, warm-up off', off));
+  console.log(`  warm-up off / on: median ${(quantile(off, 0.5) / quantile(on, 0.5)).toFixed(2)}, max ${(Math.max(...off) / Math.max(...on)).toFixed(2)}`);
 }

@@ -23,6 +23,11 @@ export function clearSpectralCache(): void {
   cache.clear();
 }
 
+/** Drops the cached results of the kernels with these definition hashes (whatever the options). */
+export function forgetSpectra(hashes: ReadonlySet<string>): void {
+  for (const key of [...cache.keys()]) if (hashes.has(key.slice(0, key.indexOf('|')))) cache.delete(key);
+}
+
 function optionsKey(o: AnalysisOptions): string {
   return `${o.eigenCount}|${o.timeBudgetMs}|${o.maxResolution}|${o.targetAccuracy}|${o.gridPoints}`;
 }

@@ -48,6 +48,11 @@ export function clearCheckCache(): void {
   cache.clear();
 }
 
+/** Drops the cached check results of the kernels with these definition hashes (whatever the options). */
+export function forgetChecks(hashes: ReadonlySet<string>): void {
+  for (const key of [...cache.keys()]) if (hashes.has(key.slice(0, key.indexOf('|')))) cache.delete(key);
+}
+
 function optionsKey(o: AnalysisOptions): string {
   return `${o.eigenCount}|${o.timeBudgetMs}|${o.maxResolution}|${o.targetAccuracy}|${o.hermitianTolerance}|${o.positivityTolerance}`;
 }

@@ -7,6 +7,7 @@ import { parentPort } from 'node:worker_threads';
 import { analyzeText, CancelledError, clearCheckCache, clearSpectralCache, type CancellationToken } from '@kernwright/core';
 import { installMathjsSimplifier } from '../mathjsSimplifier';
 import type { FromWorker, ToWorker } from './workerProtocol';
+import { runWarmUpStep, warmUpSteps } from './warmUp';
 
 const port = parentPort;
 if (!port) throw new Error('worker.js must run as a worker thread');
@@ -27,7 +28,36 @@ function post(message: FromWorker): void {
   port!.postMessage(message);
 }
 
+/** When the last job ended (or the worker started): warm-up steps run only after this much quiet. */
+let lastActivity = performance.now();
+const idleBeforeWarmUpMs = 400;
+let warmUpStep = 0;
+
+function scheduleWarmUp(): void {
+  if (warmUpStep >= warmUpSteps || process.env.KERNWRIGHT_NO_WARMUP === '1') return;
+  const timer = setTimeout(() => {
+    if (performance.now() - lastActivity >= idleBeforeWarmUpMs) {
+      try {
+        runWarmUpStep(warmUpStep);
+      } catch {
+        // A warm-up step has no one to report to; the same fault would show in a real job.
+      }
+      warmUpStep++;
+    }
+    scheduleWarmUp();
+  }, 60);
+  timer.unref();
+}
+
 port.on('message', (message: ToWorker) => {
+  try {
+    handle(message);
+  } finally {
+    lastActivity = performance.now();
+  }
+});
+
+function handle(message: ToWorker): void {
   if (message.type === 'clear-cache') {
     clearSpectralCache();
     clearCheckCache();
@@ -52,6 +82,7 @@ port.on('message', (message: ToWorker) => {
     if (error instanceof CancelledError || token.isCancellationRequested) post({ type: 'cancelled', id: message.id });
     else post({ type: 'failed', id: message.id, message: error instanceof Error ? error.message : String(error) });
   }
-});
+}
 
 post({ type: 'ready' });
+scheduleWarmUp();
