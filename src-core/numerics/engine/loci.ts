@@ -159,6 +159,70 @@ class LociFinder {
     }
   }
 
+  /**
+   * The lines where n equals the constant c, when n is built from affine parts with abs, negation, constant
+   * factors and offsets, and whole powers (so |t − s| < r gives t − s = ±r); null when not known to be lines.
+   */
+  levelLines(n: IrNode, c: number): Line[] | null {
+    const a = this.affine(n);
+    if (a) {
+      if (a.ct === 0 && a.cs === 0) return [];
+      const l = normaliseLine({ ct: a.ct, cs: a.cs, c0: a.c0 - c });
+      return l ? [l] : null;
+    }
+    const constant = (m: IrNode): number | null => {
+      const x = this.affine(m);
+      return x && x.ct === 0 && x.cs === 0 ? x.c0 : null;
+    };
+    switch (n.op) {
+      case 'neg': return this.levelLines(n.a, -c);
+      case 'let': return this.levelLines(n.body, c);
+      case 'call':
+        if (n.fn !== 'abs') return null;
+        if (c < 0) return [];
+        if (c === 0) return this.levelLines(n.args[0], 0);
+        return merge(this.levelLines(n.args[0], c), this.levelLines(n.args[0], -c));
+      case 'add': case 'sub': {
+        const ka = constant(n.a);
+        const kb = constant(n.b);
+        if (kb !== null) return this.levelLines(n.a, n.op === 'add' ? c - kb : c + kb);
+        if (ka !== null) return this.levelLines(n.b, n.op === 'add' ? c - ka : ka - c);
+        return null;
+      }
+      case 'mul': {
+        const ka = constant(n.a);
+        const kb = constant(n.b);
+        if (kb !== null && kb !== 0) return this.levelLines(n.a, c / kb);
+        if (ka !== null && ka !== 0) return this.levelLines(n.b, c / ka);
+        return null;
+      }
+      case 'div': {
+        const kb = constant(n.b);
+        return kb !== null && kb !== 0 ? this.levelLines(n.a, c * kb) : null;
+      }
+      case 'pow': {
+        const p = constant(n.b);
+        if (p === null || !Number.isInteger(p) || p < 1 || p > 16) return null;
+        if (p % 2 === 1) return this.levelLines(n.a, Math.sign(c) * Math.abs(c) ** (1 / p));
+        if (c < 0) return [];
+        const root = c ** (1 / p);
+        return root === 0 ? this.levelLines(n.a, 0) : merge(this.levelLines(n.a, root), this.levelLines(n.a, -root));
+      }
+      default: return null;
+    }
+  }
+
+  /** Where a comparison a ⋚ b can change its answer: a − b = 0 for affine sides, else a level set of one side. */
+  private comparisonLines(a: IrNode, b: IrNode): Line[] | null {
+    const direct = this.difference(a, b);
+    if (direct) return direct;
+    const x = this.affine(a);
+    const y = this.affine(b);
+    if (y && y.ct === 0 && y.cs === 0) return this.levelLines(a, y.c0);
+    if (x && x.ct === 0 && x.cs === 0) return this.levelLines(b, x.c0);
+    return null;
+  }
+
   private differenceNode(a: IrNode, b: IrNode): IrNode {
     return { op: 'sub', a, b, range: a.range };
   }
@@ -203,7 +267,7 @@ class LociFinder {
           break;
         case 'cond': stack.push(n.otherwise, n.then, n.test); break;
         case 'lt': case 'le': case 'gt': case 'ge': case 'eq': case 'ne':
-          this.add(this.difference(n.a, n.b), 'jump', n.range, this.differenceNode(n.a, n.b));
+          this.add(this.comparisonLines(n.a, n.b), 'jump', n.range, this.differenceNode(n.a, n.b));
           stack.push(n.b, n.a);
           break;
         case 'div': {
@@ -249,6 +313,10 @@ class LociFinder {
       }
     }
   }
+}
+
+function merge(a: Line[] | null, b: Line[] | null): Line[] | null {
+  return a && b ? [...a, ...b] : null;
 }
 
 /** Loci of a kernel on the square [a, b]²: only lines that meet the closed square are kept. */
