@@ -116,6 +116,8 @@ export interface ContinuityReport {
   readonly where: string | null;
   /** The largest jump measured across that curve, with its error; null unless class is 'jump'. */
   readonly jump: Estimate | null;
+  /** Every curve across which K jumps, largest jump first (empty unless class is 'jump'). */
+  readonly jumps: readonly string[];
   /** Curves along which the first derivative jumps (information: they slow plain quadrature). */
   readonly kinks: readonly string[];
 }

@@ -138,6 +138,7 @@ export function measureContinuity(ctx: CheckContext, bounded: BoundednessFacts):
       class: cls,
       where,
       jump: cls === 'jump' ? { value: jumps[0].jump, error: jumps[0].error } : null,
+      jumps: cls === 'jump' ? jumps.map((j) => j.where) : [],
       kinks: kinks.map((k) => k.where),
     },
     jumps,

@@ -133,6 +133,7 @@ export interface JsonContinuity {
   readonly class: 'continuous' | 'jump' | 'singular';
   readonly where: string | null;
   readonly jump: JsonEstimate | null;
+  readonly jumps: readonly string[];
   readonly kinks: readonly string[];
 }
 
@@ -245,7 +246,7 @@ export function jsonBoundedness(b: BoundednessReport | null): JsonBoundedness | 
 }
 
 export function jsonContinuity(c: ContinuityReport | null): JsonContinuity | null {
-  return c ? { class: c.class, where: c.where, jump: jsonEstimate(c.jump), kinks: [...c.kinks] } : null;
+  return c ? { class: c.class, where: c.where, jump: jsonEstimate(c.jump), jumps: [...c.jumps], kinks: [...c.kinks] } : null;
 }
 
 export function jsonPositive(p: PositivityReport | null): JsonPositive | null {

@@ -107,7 +107,7 @@ describe('the property checks in the JSON report', () => {
   it('gives hermitian, boundedness, continuity, positive and effectiveRank for each analysed kernel', () => {
     expect(brownian.hermitian).toEqual({ holds: true, defect: 0, method: 'symbolic', worst: null });
     expect(brownian.boundedness).toEqual({ class: 'hilbert-schmidt', exponent: null, where: null });
-    expect(brownian.continuity).toEqual({ class: 'continuous', where: null, jump: null, kinks: ['the diagonal t = s'] });
+    expect(brownian.continuity).toEqual({ class: 'continuous', where: null, jump: null, jumps: [], kinks: ['the diagonal t = s'] });
     expect(brownian.positive.holds).toBe(true);
     expect(brownian.positive.minEigenvalue.value + brownian.positive.minEigenvalue.error).toBeGreaterThanOrEqual(0);
     // Brownian motion on [0, 1]: λ_k = 1/((k − 1/2)² π²) and trace 1/2 (common practice), so λ₁ + λ₂ = 0.4503 is

@@ -105,7 +105,7 @@ describe('formatProperties', () => {
       ...wave,
       hermitian: { holds: true, defect: 0, method: 'symbolic' as const, worst: null },
       positive: { holds: false, minEigenvalue: { value: -0.25, error: 3e-10 }, certificate: null, mercer: null },
-      continuity: { class: 'jump' as const, where: 'the diagonal t = s', jump: { value: 2, error: 1e-15 }, kinks: [] },
+      continuity: { class: 'jump' as const, where: 'the diagonal t = s', jump: { value: 2, error: 1e-15 }, jumps: ['the diagonal t = s'], kinks: [] },
       boundedness: { class: 'bounded' as const, exponent: 0.5, where: 'the diagonal t = s' },
     };
     expect(formatProperties(judged)).toBe('Hermitian, not positive (λmin -0.25 ± 3e-10), jumps across the diagonal t = s, bounded, not Hilbert–Schmidt');

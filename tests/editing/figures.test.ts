@@ -24,7 +24,7 @@ const judged: KernelReport = {
   ...report,
   hermitian: { holds: true, defect: 0, method: 'symbolic', worst: null },
   positive: { holds: false, minEigenvalue: { value: -0.25, error: 3e-10 }, certificate: null, mercer: null },
-  continuity: { class: 'jump', where: 'the diagonal t = s', jump: { value: 1, error: 2e-12 }, kinks: [] },
+  continuity: { class: 'jump', where: 'the diagonal t = s', jump: { value: 1, error: 2e-12 }, jumps: ['the diagonal t = s'], kinks: [] },
   boundedness: { class: 'bounded', exponent: 0.75, where: 'the diagonal t = s' },
   effectiveRank: { p90: 3, p99: null, p999: null, resolvedModes: 8 },
   resolvent: [{ mu: { re: 0.5, im: 0 }, inResolventSet: true, distance: { value: 0.3987, error: 1e-9 }, resolventNorm: { value: 2.508, error: 6e-9 }, neumannConverges: true }],

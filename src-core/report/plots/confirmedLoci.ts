@@ -21,6 +21,7 @@ export function lociToDraw(report: KernelReport, candidates: readonly LocusSegme
   if (!c && !b) return { drawn: candidates, notDrawn: [] };
   const named = new Set<string>();
   if (c?.where) named.add(c.where);
+  for (const j of c?.jumps ?? []) named.add(j);
   for (const k of c?.kinks ?? []) named.add(k);
   if (b?.where) named.add(b.where);
   const drawn = candidates.filter((l) => named.has(l.label));
