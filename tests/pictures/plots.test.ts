@@ -155,8 +155,9 @@ describe('the drawn data is the engine’s data', () => {
   });
 
   it('the non-smooth lines drawn are those the checks name', () => {
-    // The box jumps on t − s = ±3; the diagonal (where abs(t − s) has its kink) is a candidate the checks clear.
-    const data = one('kernel box(t, s) on [0, 10] = abs(t - s) < 3 ? 1 : 0\n');
+    // A smooth bump plus a box: the box jumps on t − s = ±3; the diagonal (where abs(t − s) has its kink before it
+    // is squared) is a candidate the checks clear.
+    const data = one('kernel box(t, s) on [0, 10] = exp(-abs(t - s)^2) + (abs(t - s) < 3 ? 1 : 0)\n');
     const { drawn } = lociToDraw(data.report, data.samples!.loci);
     expect(data.samples!.loci.map((l) => l.label)).toContain('the diagonal t = s');
     expect(drawn.map((l) => l.label).sort()).toEqual(['the line t − s = -3', 'the line t − s = 3']);

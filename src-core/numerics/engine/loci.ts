@@ -267,9 +267,14 @@ class LociFinder {
           break;
         case 'cond': stack.push(n.otherwise, n.then, n.test); break;
         case 'lt': case 'le': case 'gt': case 'ge': case 'eq': case 'ne':
-          this.add(this.comparisonLines(n.a, n.b), 'jump', n.range, this.differenceNode(n.a, n.b));
-          stack.push(n.b, n.a);
+        {
+          const lines = this.comparisonLines(n.a, n.b);
+          this.add(lines, 'jump', n.range, this.differenceNode(n.a, n.b));
+          // A comparison only passes on true or false: when the lines where it changes are known, the kinks of its
+          // sides (the abs in |t − s| < r) are not kinks of K. Otherwise the sides are searched as well.
+          if (!lines) stack.push(n.b, n.a);
           break;
+        }
         case 'div': {
           const denominator = this.affine(n.b);
           if (!(denominator && denominator.ct === 0 && denominator.cs === 0)) this.add(this.zeroLines(n.b), 'singular', n.range, n.b);

@@ -9,10 +9,11 @@
  * but it leaves a trace in the eigenfunctions: where the line enters or leaves the square at s = a (say, at t = a + c),
  * (Tφ)(t) = ∫ K(t, s) φ(s) ds changes the number of smooth pieces it integrates over, so Tφ, and with it every
  * eigenfunction, loses smoothness at t = a + c (a jump in the second derivative behind a kink, in the first behind a
- * jump). Applying T again carries that point along the line to a + 2c, two derivatives smoother. Breakpoints at
- * the entry points and at their first images keep every panel's eigenfunction pieces smooth enough for p-refinement
- * to converge quickly (the same reason panels respect axis-parallel loci; common practice for piecewise-polynomial
- * Galerkin methods, stated here from the argument above rather than from a source).
+ * jump). Applying T again carries that point along the line to a + 2c, two derivatives smoother behind a kink (one
+ * behind a jump). Breakpoints at the entry points and at their first images (three generations behind a jump)
+ * keep every panel's eigenfunction pieces smooth enough for p-refinement to converge quickly (the same reason
+ * panels respect axis-parallel loci; common practice for piecewise-polynomial Galerkin methods, stated here from
+ * the argument above rather than from a source).
  */
 import { gradedPanels } from '../quadrature';
 import type { Line, Locus } from './loci';
@@ -52,17 +53,24 @@ function boundaryCoordinates(l: Line, a: number, b: number): number[] {
 
 /**
  * Points where the eigenfunctions of a kernel with a kink or jump on the oblique line l lose smoothness: where l
- * meets the boundary of the square, and those points carried once along l in either direction (t ↦ s and s ↦ t).
+ * meets the boundary of the square, and those points carried along l in either direction (t ↦ s and s ↦ t) for
+ * `generations` steps. Each step gains one derivative behind a jump and two behind a kink, so jumps are followed
+ * further; at most 24 points per line.
  */
-export function obliqueTracePoints(l: Line, a: number, b: number): number[] {
+export function obliqueTracePoints(l: Line, a: number, b: number, generations = 1): number[] {
   const inside = (x: number) => x > a + 1e-12 * (b - a) && x < b - 1e-12 * (b - a);
-  const seeds = boundaryCoordinates(l, a, b).filter(inside);
-  const out = [...seeds];
-  for (const x of seeds) {
-    out.push(-(l.cs * x + l.c0) / l.ct); // the line at s = x
-    out.push(-(l.ct * x + l.c0) / l.cs); // the line at t = x
+  let front = boundaryCoordinates(l, a, b).filter(inside);
+  const out = [...front];
+  for (let g = 0; g < generations && front.length > 0 && out.length < 24; g++) {
+    const next: number[] = [];
+    for (const x of front) {
+      next.push(-(l.cs * x + l.c0) / l.ct); // the line at s = x
+      next.push(-(l.ct * x + l.c0) / l.cs); // the line at t = x
+    }
+    front = next.filter((x) => inside(x) && !out.some((y) => Math.abs(y - x) <= 1e-12 * (b - a)));
+    out.push(...front);
   }
-  return out.filter(inside);
+  return out.slice(0, 24);
 }
 
 export function planMesh(loci: readonly Locus[], a: number, b: number): MeshPlan {
@@ -77,7 +85,7 @@ export function planMesh(loci: readonly Locus[], a: number, b: number): MeshPlan
     } else if (kind === 'singular') {
       grade.push(...boundaryCoordinates(line, a, b));
     } else {
-      base.push(...obliqueTracePoints(line, a, b));
+      base.push(...obliqueTracePoints(line, a, b, kind === 'jump' ? 3 : 1));
     }
   }
   const baseSorted = uniqueSorted(base, scale);

@@ -6,6 +6,7 @@
 import { describe, expect, it } from 'vitest';
 import { parse, bindFile } from '@kernwright/core';
 import { findLoci } from '../../../src-core/numerics/engine/loci';
+import { obliqueTracePoints } from '../../../src-core/numerics/engine/mesh';
 import { analyseKernel } from './helpers';
 
 function lociOf(expr: string, domain: [number, number] = [0, 10]) {
@@ -42,5 +43,22 @@ describe('level sets of comparisons', () => {
     const k = analyseKernel('domain [0, 1]\nkernel box(t, s) = abs(t - s) < 0.3 ? 1 : 0', { timeBudgetMs: 5000 });
     const worst = Math.max(...k.spectrum!.eigenvalues.map((e) => e.error));
     expect(worst / k.spectrum!.norm!.value).toBeLessThan(1e-10);
+  });
+
+  it('does not take the kink of abs inside a comparison it resolved for a kink of K', () => {
+    const k = bindFile(parse('domain [0, 10]\nkernel k(t, s) = abs(t - s) < 3 ? 1 : 0')).kernels[0];
+    expect(findLoci(k.ir!, [0, 10]).loci.map((l) => l.kind)).toEqual(['jump', 'jump']);
+  });
+});
+
+describe('breakpoints behind oblique loci', () => {
+  it('follow a jump on t − s = 3 across [0, 10] for three generations: 3, 7, then 6, 4, then 9, 1', () => {
+    const pts = obliqueTracePoints({ ct: 1, cs: -1, c0: -3 }, 0, 10, 3).sort((x, y) => x - y);
+    expect(pts).toEqual([1, 3, 4, 6, 7, 9]);
+  });
+
+  it('follow a kink for one generation only, and stop at the edge of the square', () => {
+    expect(obliqueTracePoints({ ct: 1, cs: -1, c0: -3 }, 0, 10, 1).sort((x, y) => x - y)).toEqual([3, 4, 6, 7]);
+    expect(obliqueTracePoints({ ct: 1, cs: -1, c0: -6 }, 0, 10, 3).sort((x, y) => x - y)).toEqual([4, 6]);
   });
 });
