@@ -92,6 +92,8 @@ export interface HermitianReport {
   readonly holds: boolean;
   /** Relative defect ‖K − K*‖_HS / ‖K‖_HS (0 when Hermitian by construction). */
   readonly defect: number;
+  /** Estimated absolute error of `defect` (0 when Hermitian by construction). */
+  readonly defectError: number;
   /** 'symbolic' when the expression is Hermitian by construction, else 'numeric'. */
   readonly method: 'symbolic' | 'numeric';
   /** Where |K(t, s) − conj K(s, t)| is largest on the sample grid (null when Hermitian by construction). */

@@ -7,8 +7,8 @@
  *    defect is exactly 0 and no sampling noise enters;
  *  - otherwise the relative defect ‖K − K*‖_HS / ‖K‖_HS, sampled with Gauss–Legendre rules of 64 points in t and
  *    63 in s (two rules without a common point, so the grid never lies on the diagonal, where a piecewise kernel
- *    may take either branch), with the point of the largest |K(t, s) − conj K(s, t)|; and the Galerkin matrix
- *    defect ‖A − Aᴴ‖_F / ‖A‖_F from the engine.
+ *    may take either branch), with the point of the largest |K(t, s) − conj K(s, t)|, and its error from the same
+ *    defect on 48 × 47 points; and the Galerkin matrix defect ‖A − Aᴴ‖_F / ‖A‖_F from the engine.
  * Tolerance: the larger of the `hermitianTolerance` setting and the relative accuracy the engine reached (a
  * defect below what the discretisation can resolve is no evidence). Both defects must be within it.
  * Finding: KW501 on the kernel's name (a symmetrize fix attached); claim: KW601 on the `hermitian` item.
@@ -18,7 +18,7 @@ import { holds } from './types';
 import type { HermitianReport } from '../analysis/types';
 import type { Fix } from '../diagnostics/types';
 import { isHermitianByConstruction } from './symbolicHermitian';
-import { fmt, fmtComplex, gaussGrid, sampleGrid } from './sampling';
+import { fmt, fmtComplex, fmtEstimate, gaussGrid, sampleGrid } from './sampling';
 
 export interface SymmetryFacts {
   readonly report: HermitianReport;
@@ -35,13 +35,27 @@ export function measureSymmetry(ctx: CheckContext): SymmetryFacts {
   const tolerance = Math.max(ctx.options.hermitianTolerance, reached);
   const complex = ctx.ir.complex;
   if (isHermitianByConstruction(ctx.ir)) {
-    return { report: { holds: true, defect: 0, method: 'symbolic', worst: null }, gridDefect: 0, galerkinDefect, tolerance, complex };
+    return { report: { holds: true, defect: 0, defectError: 0, method: 'symbolic', worst: null }, gridDefect: 0, galerkinDefect, tolerance, complex };
   }
+  const fine = sampledDefect(ctx, 64, 63);
+  // The same defect on a coarser pair of rules: the difference (×4, as the engine's estimates, for rules that
+  // converge only algebraically across a jump) is the error of the finer value, floored at rounding level.
+  const coarse = sampledDefect(ctx, 48, 47);
+  const defectError = Math.max(4 * Math.abs(fine.defect - coarse.defect), 16 * Number.EPSILON * Math.max(1, fine.defect));
+  const gridDefect = fine.defect;
+  const holdsNow = gridDefect <= tolerance && !(galerkinDefect > tolerance);
+  const report: HermitianReport = { holds: holdsNow, defect: gridDefect, defectError, method: 'numeric', worst: fine.worst };
+  return { report, gridDefect, galerkinDefect, tolerance, complex };
+}
+
+/**
+ * ‖K − K*‖/‖K‖ sampled with Gauss–Legendre rules of nt points in t and ns in s, and the point of the largest
+ * |K(t, s) − conj K(s, t)| (rules of different sizes share no point, so the grid never lies on the diagonal).
+ */
+function sampledDefect(ctx: CheckContext, nt: number, ns: number): { defect: number; worst: HermitianReport['worst'] } {
   const [a, b] = ctx.domain;
-  const gt = gaussGrid(a, b, 64);
-  const gs = gaussGrid(a, b, 63);
-  const nt = gt.nodes.length;
-  const ns = gs.nodes.length;
+  const gt = gaussGrid(a, b, nt);
+  const gs = gaussGrid(a, b, ns);
   const k = sampleGrid(ctx.compiled, gt.nodes, gs.nodes); // K(t_i, s_j) at i * ns + j
   const m = sampleGrid(ctx.compiled, gs.nodes, gt.nodes); // K(s_j, t_i) at j * nt + i
   let num = 0;
@@ -64,22 +78,17 @@ export function measureSymmetry(ctx: CheckContext): SymmetryFacts {
       if (d2 > worst) { worst = d2; worstAt = { i, j }; }
     }
   }
-  const gridDefect = den > 0 ? Math.sqrt(num / den) : 0;
-  const holdsNow = gridDefect <= tolerance && !(galerkinDefect > tolerance);
   const { i, j } = worstAt;
   const p = i * ns + j;
   const q = j * nt + i;
-  const report: HermitianReport = {
-    holds: holdsNow,
-    defect: gridDefect,
-    method: 'numeric',
+  return {
+    defect: den > 0 ? Math.sqrt(num / den) : 0,
     worst: worst > 0 ? {
       t: gt.nodes[i], s: gs.nodes[j],
       value: { re: k.re[p], im: k.im ? k.im[p] : 0 },
       mirrored: { re: m.re[q], im: m.im ? -m.im[q] : 0 },
     } : null,
   };
-  return { report, gridDefect, galerkinDefect, tolerance, complex };
 }
 
 function messageArgs(ctx: { name: string }, f: SymmetryFacts): Record<string, string | number> {
@@ -87,7 +96,7 @@ function messageArgs(ctx: { name: string }, f: SymmetryFacts): Record<string, st
   return {
     name: ctx.name,
     what: f.complex ? 'Hermitian' : 'symmetric',
-    defect: fmt(f.report.defect, 3),
+    defect: fmtEstimate(f.report.defect, f.report.defectError),
     t: w ? fmt(w.t, 4) : '?',
     s: w ? fmt(w.s, 4) : '?',
     value: w ? fmtComplex(w.value.re, w.value.im, 6) : '?',
@@ -100,6 +109,7 @@ function figures(f: SymmetryFacts): Record<string, number | null> {
   const w = f.report.worst;
   return {
     defect: f.report.defect,
+    defectError: f.report.defectError,
     galerkinDefect: Number.isFinite(f.galerkinDefect) ? f.galerkinDefect : null,
     tolerance: f.tolerance,
     t: w?.t ?? null,

@@ -32,7 +32,7 @@ export function propertyMarks(report: KernelReport): PropertyMark[] {
   const out: PropertyMark[] = [];
   const h = report.hermitian;
   if (h) {
-    const figure = h.method === 'symbolic' ? 'by construction' : `‖K − K*‖/‖K‖ = ${formatNumber(h.defect, 3)}`;
+    const figure = h.method === 'symbolic' ? 'by construction' : `‖K − K*‖/‖K‖ = ${formatEstimate(h.defect, h.defectError)}`;
     out.push(withFigure('Hermitian', h.holds, figure));
   }
   const p = report.positive;

@@ -118,6 +118,8 @@ export interface JsonHermitian {
   readonly holds: boolean;
   /** ‖K − K*‖_HS / ‖K‖_HS; 0 when Hermitian by construction (method 'symbolic'). */
   readonly defect: number | null;
+  /** Estimated absolute error of `defect`. */
+  readonly defectError: number | null;
   readonly method: 'symbolic' | 'numeric';
   /** The point of the largest |K(t, s) − conj K(s, t)|, with both values; null when there is none. */
   readonly worst: (JsonPoint & { readonly value: JsonComplex; readonly mirrored: JsonComplex }) | null;
@@ -236,6 +238,7 @@ export function jsonHermitian(h: HermitianReport | null): JsonHermitian | null {
   return {
     holds: h.holds,
     defect: jsonNumber(h.defect),
+    defectError: jsonNumber(h.defectError),
     method: h.method,
     worst: w ? { t: jsonNumber(w.t), s: jsonNumber(w.s), value: jsonComplex(w.value), mirrored: jsonComplex(w.mirrored) } : null,
   };

@@ -96,7 +96,7 @@ export function formatSpectrumFigures(spectrum: SpectrumReport): string {
 export function formatProperties(kernel: KernelReport): string {
   const parts: string[] = [];
   const h = kernel.hermitian;
-  if (h) parts.push(h.holds ? 'Hermitian' : `not Hermitian (defect ${formatNumber(h.defect, 2)})`);
+  if (h) parts.push(h.holds ? 'Hermitian' : `not Hermitian (defect ${formatEstimate(h.defect, h.defectError)})`);
   const p = kernel.positive;
   if (p && h?.holds && p.holds !== null) {
     const m = p.minEigenvalue;

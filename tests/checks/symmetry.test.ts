@@ -101,3 +101,23 @@ describe('tolerance and severity settings', () => {
     expect(r.diagnostics('k').find((d) => d.code === 'KW601')?.severity).toBe('error');
   });
 });
+
+describe('the measured defect carries an error estimate that covers the closed-form value', () => {
+  // ‖K − K*‖²/(½‖K‖² + ½‖K*‖²) in closed form (integrals worked by hand, common practice).
+  const ea = ((Math.E ** 2 - 1) / 2) * ((1 - Math.E ** -4) / 4); // ∫∫ e^{2t − 4s}
+  const eb = (1 - 1 / Math.E) ** 2; // ∫∫ e^{−t − s}
+  const cases: [string, number][] = [
+    ['t * s^2', Math.sqrt(1 / 8)], // ∫∫ t²s²(s − t)² = 1/120 over ∫∫ t²s⁴ = 1/15
+    ['exp(t - 2 * s)', Math.sqrt(2 - (2 * eb) / ea)],
+    ['s < t ? 1 : 0', Math.SQRT2], // |K − K*| = 1 off the diagonal; ½(½ + ½) below
+  ];
+  for (const [body, exact] of cases) {
+    it(`${body}: defect ${exact.toPrecision(8)}`, () => {
+      const h = analyse(`domain [0, 1]\nkernel k(t, s) = ${body}\n`).kernel('k').hermitian!;
+      expect(h.method).toBe('numeric');
+      expect(h.holds).toBe(false);
+      expect(Math.abs(h.defect - exact)).toBeLessThanOrEqual(h.defectError);
+      expect(h.defectError).toBeLessThan(0.05 * exact);
+    });
+  }
+});

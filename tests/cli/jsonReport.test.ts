@@ -105,7 +105,7 @@ describe('the property checks in the JSON report', () => {
   const [brownian, lopsided, wire] = report.files[0].kernels;
 
   it('gives hermitian, boundedness, continuity, positive and effectiveRank for each analysed kernel', () => {
-    expect(brownian.hermitian).toEqual({ holds: true, defect: 0, method: 'symbolic', worst: null });
+    expect(brownian.hermitian).toEqual({ holds: true, defect: 0, defectError: 0, method: 'symbolic', worst: null });
     expect(brownian.boundedness).toEqual({ class: 'hilbert-schmidt', exponent: null, where: null });
     expect(brownian.continuity).toEqual({ class: 'continuous', where: null, jump: null, jumps: [], kinks: ['the diagonal t = s'] });
     expect(brownian.positive.holds).toBe(true);

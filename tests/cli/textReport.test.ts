@@ -103,7 +103,7 @@ describe('formatProperties', () => {
   it('names each property in a few words, the minimum eigenvalue with its error', () => {
     const judged = {
       ...wave,
-      hermitian: { holds: true, defect: 0, method: 'symbolic' as const, worst: null },
+      hermitian: { holds: true, defect: 0, defectError: 0, method: 'symbolic' as const, worst: null },
       positive: { holds: false, minEigenvalue: { value: -0.25, error: 3e-10 }, certificate: null, mercer: null },
       continuity: { class: 'jump' as const, where: 'the diagonal t = s', jump: { value: 2, error: 1e-15 }, jumps: ['the diagonal t = s'], kinks: [] },
       boundedness: { class: 'bounded' as const, exponent: 0.5, where: 'the diagonal t = s' },
@@ -117,7 +117,7 @@ describe('formatProperties', () => {
   it('gives the effective rank, with “>” for counts beyond the resolved modes', () => {
     const positive = {
       ...wave,
-      hermitian: { holds: true, defect: 0, method: 'symbolic' as const, worst: null },
+      hermitian: { holds: true, defect: 0, defectError: 0, method: 'symbolic' as const, worst: null },
       positive: { holds: true, minEigenvalue: { value: 1e-6, error: 4e-7 }, certificate: null, mercer: null },
       effectiveRank: { p90: 2, p99: 21, p999: null, resolvedModes: 24 },
     };

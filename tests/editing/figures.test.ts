@@ -22,7 +22,7 @@ const report: KernelReport = {
 
 const judged: KernelReport = {
   ...report,
-  hermitian: { holds: true, defect: 0, method: 'symbolic', worst: null },
+  hermitian: { holds: true, defect: 0, defectError: 0, method: 'symbolic', worst: null },
   positive: { holds: false, minEigenvalue: { value: -0.25, error: 3e-10 }, certificate: null, mercer: null },
   continuity: { class: 'jump', where: 'the diagonal t = s', jump: { value: 1, error: 2e-12 }, jumps: ['the diagonal t = s'], kinks: [] },
   boundedness: { class: 'bounded', exponent: 0.75, where: 'the diagonal t = s' },

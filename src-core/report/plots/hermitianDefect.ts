@@ -3,7 +3,7 @@
  * diverging for a real kernel, where D is antisymmetric; its modulus for a complex one), with the point where the
  * Hermitian check measured the largest |D| marked. Drawn only when the check found the kernel not Hermitian.
  */
-import { formatNumber } from '../text';
+import { formatEstimate, formatNumber } from '../text';
 import { cellLayer, colourRange, lociLayers } from './heatmapLayers';
 import { overlayHalo, overlayInk } from './palette';
 import type { KernelPictureData, KernelSamples, PlotFigure, VegaLiteSpec } from './plotTypes';
@@ -70,8 +70,10 @@ export function hermitianDefectFigure(data: KernelPictureData): PlotFigure | nul
       },
     });
   }
-  const defect = isFiniteNumber(h.defect) ? formatNumber(h.defect, 3) : 'not available';
-  const rows: string[][] = [['relative defect ‖K − K*‖₂ / ‖K‖₂', `${defect} (sampled on the check’s grid; no error estimate)`]];
+  const defect = isFiniteNumber(h.defect)
+    ? (isFiniteNumber(h.defectError) ? formatEstimate(h.defect, h.defectError) : formatNumber(h.defect, 3))
+    : 'not available';
+  const rows: string[][] = [['relative defect ‖K − K*‖₂ / ‖K‖₂', `${defect} (sampled on the check’s grid)`]];
   if (worst) {
     rows.push(['largest at', `t = ${formatNumber(worst.t, 6)}, s = ${formatNumber(worst.s, 6)}`]);
     rows.push(['K(t, s)', complexText(worst.value)]);
