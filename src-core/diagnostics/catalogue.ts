@@ -99,8 +99,8 @@ export const catalogue = {
     'Comparisons, min, max, floor and erf are defined for real arguments only.'),
 
   // ---- KW4xx numerical analysis ----
-  'not-converged': entry('KW401', 'info', 'Target accuracy not reached', 'The spectrum of “{name}” reached a relative accuracy of {reached} (target {target}) within {budget} ms.',
-    'The engine refines its discretisation until the leading eigenvalues agree to the target accuracy or the time budget per kernel is spent. Every figure still carries its own error estimate; raise the time budget or the resolution cap for more digits.'),
+  'not-converged': entry('KW401', 'info', 'Target accuracy not reached', 'The spectrum of “{name}” reached a relative accuracy of {reached} (target {target}) within its budget of {budget} ms of work.',
+    'The engine refines its discretisation until the leading eigenvalues agree to the target accuracy or the budget per kernel is spent (counted in work, so the result is the same on every machine). Every figure still carries its own error estimate; raise the time budget or the resolution cap for more digits.'),
   'spectrum-unavailable': entry('KW402', 'warning', 'No spectrum', 'No spectrum for “{name}”: {reason}.',
     'The operator could not be analysed numerically; the message says why. Eigenvalues and the norm are reported as null.'),
   'methods-disagree': entry('KW403', 'warning', 'Two methods disagree', 'For “{name}”, the degenerate-kernel method gives λ{index} = {exact} but the Galerkin discretisation gives {galerkin} (difference {difference}, above the combined error estimate {error}).',

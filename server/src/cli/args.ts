@@ -141,7 +141,7 @@ figures of every kernel: heat maps of K and of its Hermitian defect, the eigenva
   --eigenvalues N, --eigenfunctions N, --grid-points N
 
 Common options:
-  --time-budget MS            time for the numerical analysis of each kernel (default 250)
+  --time-budget MS            budget for the numerical analysis of each kernel, counted in work (default 250)
   -h, --help                  show this help
   -v, --version               show the version
 

@@ -9,7 +9,7 @@
  *   --eigenvalues N        how many leading eigenvalues to compute and show (default 16)
  *   --eigenfunctions N     how many leading eigenfunctions to draw, 1 to 4 (default 4)
  *   --grid-points N        cells per axis of the heat maps, 8 to 200 (default 48)
- *   --time-budget MS       time for the numerical analysis of each kernel (default: the core's, 250)
+ *   --time-budget MS       budget for the numerical analysis of each kernel (default: the core's, 250)
  *
  * Exit codes: 0 the report was written (a kernel with errors gets a section saying so); 2 bad usage, unreadable
  * input or output that cannot be written. Nothing is written unless the whole page was made.
@@ -54,7 +54,7 @@ error estimates, as one self-contained HTML page.
   --eigenvalues N             leading eigenvalues to compute and show (default 16)
   --eigenfunctions N          leading eigenfunctions to draw, 1 to 4 (default 4)
   --grid-points N             cells per axis of the heat maps, 8 to 200 (default 48)
-  --time-budget MS            time for the numerical analysis of each kernel (default 250)
+  --time-budget MS            budget for the numerical analysis of each kernel, counted in work (default 250)
 `;
 
 const valueOptions = new Set(['--output', '--kernel', '--eigenvalues', '--eigenfunctions', '--grid-points', '--time-budget']);

@@ -37,6 +37,27 @@ export interface SpectralResult {
 
 const now = () => (typeof performance !== 'undefined' ? performance.now() : Date.now());
 
+/**
+ * The budget is counted in work, not wall-clock time, so that a kernel gets the same discretisations, figures and
+ * diagnostics on every machine and under any load (a code review must not see figures move because CI was busy).
+ * One unit is about a nanosecond on the 2-core machine the defaults were tuned on: a budget of 250 ms there buys
+ * 250·10⁶ units. A level's work is its assembly (counted multiply-adds and evaluations) plus its dense solve,
+ * c·N³ with c measured per solver. Only a machine many times slower than that (or heavily overloaded) meets the
+ * wall-clock safety net of four times the budget plus a second, and then its result depends on the machine.
+ */
+export const workUnitsPerMs = 1e6;
+
+export function safetyNetMs(budgetMs: number): number {
+  return 4 * budgetMs + 1000;
+}
+
+export function levelWork(sol: LevelSolution): number {
+  const m = sol.matrix;
+  const complex = m.im !== null;
+  const solve = sol.hermitian ? (complex ? 6 : 3) : (complex ? 20 : 4);
+  return m.work + solve * m.n ** 3;
+}
+
 /** Target relative accuracy by kernel class: smooth and piecewise smooth kernels can do far better than singular ones. */
 export function classTarget(options: AnalysisOptions, singular: readonly SingularityEstimate[]): number {
   if (singular.some((s) => s.type === 'power' && s.exponent >= 0.5)) return Math.max(options.targetAccuracy, 1e-6);
@@ -100,7 +121,9 @@ export function runSpectralEngine(
   });
   const count = options.eigenCount;
   const levels: LevelSolution[] = [];
-  let lastTime = 0;
+  let lastWork = 0;
+  let spent = 0;
+  const budget = options.timeBudgetMs * workUnitsPerMs;
   let reached = Infinity;
   let estimates: { eig: EigenEstimate[]; norm: Estimate; hs: Estimate | null } | null = null;
   const hsFinite = singularities.every((s) => s.squareIntegrable);
@@ -108,13 +131,12 @@ export function runSpectralEngine(
   for (let k = 0; k < ladder.length; k++) {
     throwIfCancelled(token);
     const d = ladder[k];
-    const elapsed = now() - start;
     // At least three levels always (so every estimate has a convergence rate behind it); then the budget rules.
     if (levels.length >= 3) {
       const growth = (discretisationSize(d) / levels[levels.length - 1].matrix.n) ** 2.5;
-      if (elapsed + lastTime * growth > options.timeBudgetMs) break;
+      if (spent + lastWork * growth > budget) break;
+      if (now() - start > safetyNetMs(options.timeBudgetMs)) break; // see workUnitsPerMs
     }
-    const t0 = now();
     const matrix = assembleGalerkin(kernel, d, oblique, token);
     if (matrix.nonFinite > 0) {
       if (levels.length === 0) return empty('K is not finite at points inside the square where the analysis must evaluate it');
@@ -122,7 +144,8 @@ export function runSpectralEngine(
     }
     const sol = solveLevel(matrix, Math.max(count, 1) + 4);
     levels.push(sol);
-    lastTime = now() - t0;
+    lastWork = levelWork(sol);
+    spent += lastWork;
     if (levels.length < 2) continue;
     estimates = estimateAll(levels, count, hsFinite, singularLoci.length > 0);
     const scale = Math.max(estimates.norm.value, 1e-300);
