@@ -30,8 +30,9 @@ export function availableCores(): number {
 }
 
 /**
- * How many threads to use: as requested, or by default one per idle core when there are enough files to pay (the
- * analysis of a kernel is bounded by a time budget, so threads on cores that other work keeps busy buy nothing).
+ * How many threads to use: as requested, or by default one per idle core when there are enough files to pay (threads
+ * on cores that other work keeps busy only compete with it; the results are the same either way, since the engine's
+ * budget is counted in work, not time).
  */
 export function chooseThreads(
   files: number,
