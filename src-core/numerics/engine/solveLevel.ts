@@ -1,8 +1,9 @@
 /**
  * Eigenvalues, eigenvectors and the largest singular value of one Galerkin matrix. A matrix whose Hermitian defect
  * is at rounding level (or that is Hermitian by construction) is solved as Hermitian after replacing it by its
- * Hermitian part (A + Aᴴ)/2, so that eigenvalues are real and eigenvectors orthonormal; otherwise the general
- * complex eigensolver is used and the norm is the largest singular value.
+ * Hermitian part (A + Aᴴ)/2, so that eigenvalues are real and eigenvectors orthonormal; otherwise a general
+ * eigensolver is used (for a real matrix: values by the Francis QR, the leading vectors by inverse iteration when
+ * first read; for a complex one: the complex Schur form) and the norm is the largest singular value.
  */
 import {
   generalEigen, hermitianDefect, hermitianEigen, largestSingularValue,
