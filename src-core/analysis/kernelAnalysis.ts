@@ -6,6 +6,7 @@ import type { Diagnostic } from '../diagnostics/types';
 import { makeDiagnostic } from '../diagnostics/make';
 import type { KernelSymbol } from '../semantics/model';
 import type { CancellationToken } from '../util/cancellation';
+import { forgetHashes } from '../util/hashCache';
 import { runSpectralEngine, type SpectralResult } from '../numerics/engine/spectralEngine';
 import { crossCheckSeparable } from '../numerics/engine/degenerate';
 import type { AnalysisOptions, SpectrumReport } from './types';
@@ -25,7 +26,7 @@ export function clearSpectralCache(): void {
 
 /** Drops the cached results of the kernels with these definition hashes (whatever the options). */
 export function forgetSpectra(hashes: ReadonlySet<string>): void {
-  for (const key of [...cache.keys()]) if (hashes.has(key.slice(0, key.indexOf('|')))) cache.delete(key);
+  forgetHashes(cache, hashes);
 }
 
 function optionsKey(o: AnalysisOptions): string {

@@ -8,6 +8,7 @@ import type { KernelSymbol } from '../semantics/model';
 import { compileKernel } from '../semantics/evaluator';
 import type { CancellationToken } from '../util/cancellation';
 import { throwIfCancelled } from '../util/cancellation';
+import { forgetHashes } from '../util/hashCache';
 import type {
   AnalysisOptions, BoundednessReport, ContinuityReport, EffectiveRankReport, HermitianReport, PositivityReport,
   ResolventReport, SpectrumReport,
@@ -50,7 +51,7 @@ export function clearCheckCache(): void {
 
 /** Drops the cached check results of the kernels with these definition hashes (whatever the options). */
 export function forgetChecks(hashes: ReadonlySet<string>): void {
-  for (const key of [...cache.keys()]) if (hashes.has(key.slice(0, key.indexOf('|')))) cache.delete(key);
+  forgetHashes(cache, hashes);
 }
 
 function optionsKey(o: AnalysisOptions): string {

@@ -170,10 +170,7 @@ class LociFinder {
       const l = normaliseLine({ ct: a.ct, cs: a.cs, c0: a.c0 - c });
       return l ? [l] : null;
     }
-    const constant = (m: IrNode): number | null => {
-      const x = this.affine(m);
-      return x && x.ct === 0 && x.cs === 0 ? x.c0 : null;
-    };
+    const constant = (m: IrNode) => this.constantValue(m);
     switch (n.op) {
       case 'neg': return this.levelLines(n.a, -c);
       case 'let': return this.levelLines(n.body, c);
@@ -216,11 +213,16 @@ class LociFinder {
   private comparisonLines(a: IrNode, b: IrNode): Line[] | null {
     const direct = this.difference(a, b);
     if (direct) return direct;
-    const x = this.affine(a);
-    const y = this.affine(b);
-    if (y && y.ct === 0 && y.cs === 0) return this.levelLines(a, y.c0);
-    if (x && x.ct === 0 && x.cs === 0) return this.levelLines(b, x.c0);
-    return null;
+    const cb = this.constantValue(b);
+    if (cb !== null) return this.levelLines(a, cb);
+    const ca = this.constantValue(a);
+    return ca !== null ? this.levelLines(b, ca) : null;
+  }
+
+  /** The value of n when it is a constant (an affine expression without t and s), else null. */
+  private constantValue(n: IrNode): number | null {
+    const x = this.affine(n);
+    return x && x.ct === 0 && x.cs === 0 ? x.c0 : null;
   }
 
   private differenceNode(a: IrNode, b: IrNode): IrNode {

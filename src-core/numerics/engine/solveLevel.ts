@@ -10,6 +10,7 @@ import {
 } from '../linalg';
 import { hessenbergEigenvalues, hessenbergEigenvector, hessenbergReduce } from '../linalg/realEigenvalues';
 import { symmetricTridiagonalQl } from '../linalg/symmetricTridiagonalQl';
+import { phaseUnitVector } from '../linalg/eigenvectorPhase';
 import type { GalerkinMatrix } from './assemble';
 
 export interface LevelEigenpair {
@@ -45,12 +46,7 @@ export const hermitianDefectThreshold = 1e-11;
 
 function signFixedRow(rows: Float64Array, n: number, k: number): Float64Array {
   const v = Float64Array.from(rows.subarray(k * n, k * n + n));
-  let big = 0;
-  let sign = 1;
-  for (let i = 0; i < n; i++) {
-    if (Math.abs(v[i]) > big) { big = Math.abs(v[i]); sign = v[i] < 0 ? -1 : 1; }
-  }
-  if (sign < 0) for (let i = 0; i < n; i++) v[i] = -v[i];
+  phaseUnitVector(v, new Float64Array(n));
   return v;
 }
 

@@ -35,3 +35,30 @@ export function writePhasedColumn(
   }
   vectorsIm[bigI * n + k] = 0;
 }
+
+/**
+ * Scales the vector x + iy in place to unit 2-norm and rotates it so that its entry of largest modulus is real and
+ * positive (for a real vector, y all zero: the usual sign convention). A zero vector is left as it is.
+ */
+export function phaseUnitVector(x: Float64Array, y: Float64Array): void {
+  const n = x.length;
+  let bigI = 0;
+  let big2 = -1;
+  let norm2 = 0;
+  for (let i = 0; i < n; i++) {
+    const m2 = x[i] * x[i] + y[i] * y[i];
+    norm2 += m2;
+    if (m2 > big2) { big2 = m2; bigI = i; }
+  }
+  if (!(norm2 > 0)) return;
+  const scale = 1 / (Math.sqrt(big2) * Math.sqrt(norm2));
+  const cr = x[bigI] * scale;
+  const ci = -y[bigI] * scale;
+  for (let i = 0; i < n; i++) {
+    const a = x[i];
+    const b = y[i];
+    x[i] = a * cr - b * ci;
+    y[i] = a * ci + b * cr;
+  }
+  y[bigI] = 0;
+}

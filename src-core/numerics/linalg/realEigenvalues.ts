@@ -15,6 +15,8 @@
  * the values are then approximations and the call still returns.
  */
 
+import { phaseUnitVector } from './eigenvectorPhase';
+
 const MAX_STEPS = 60;
 
 export interface RealEigenvalues {
@@ -193,27 +195,8 @@ export function hessenbergEigenvector(form: HessenbergForm, re: number, im: numb
       zi[i] -= f * di * reflectors[k * n + i];
     }
   }
-  // Unit 2-norm, entry of largest modulus real and positive.
-  let bigI = 0;
-  let big2 = -1;
-  let norm2 = 0;
-  for (let i = 0; i < n; i++) {
-    const m2 = zr[i] * zr[i] + zi[i] * zi[i];
-    norm2 += m2;
-    if (m2 > big2) { big2 = m2; bigI = i; }
-  }
-  const mod = Math.sqrt(big2);
-  const norm = Math.sqrt(norm2);
-  const cr = mod > 0 ? zr[bigI] / mod / norm : 1;
-  const ci = mod > 0 ? -zi[bigI] / mod / norm : 0;
-  const outRe = new Float64Array(n);
-  const outIm = new Float64Array(n);
-  for (let i = 0; i < n; i++) {
-    outRe[i] = zr[i] * cr - zi[i] * ci;
-    outIm[i] = zr[i] * ci + zi[i] * cr;
-  }
-  outIm[bigI] = 0;
-  return { re: outRe, im: outIm };
+  phaseUnitVector(zr, zi);
+  return { re: zr, im: zi };
 }
 
 /** Eigenvalues of the upper Hessenberg matrix h (overwritten) by the Francis double-shift QR iteration. */

@@ -87,6 +87,8 @@ describe('singularValues', () => {
   });
 });
 
+// Reference: the full SVD of singularValues (ml-matrix's Golub–Kahan SVD, itself checked against mathjs above);
+// the cluster case has its singular values by construction (a signed permutation times a diagonal).
 describe('largestSingularValue (Lanczos on AᵀA)', () => {
   it('equals the first of all singular values for real and complex matrices above the dense cut-off', () => {
     for (const [n, seed] of [[65, 1], [120, 2], [200, 3]] as const) {
