@@ -37,21 +37,30 @@ export function slotCountOf(root: IrNode, arity = 2): number {
   return max + 1;
 }
 
-/** The node as a closed function of the free variables: wrapped in the `let` bindings it refers to, transitively. */
+/**
+ * The node as a closed function of the free variables: wrapped in the `let` bindings it refers to, transitively.
+ * Only slots bound *outside* the node (and outside the values pulled in) are wrapped: a `let` inside them already
+ * binds its slot, and wrapping it again would bind one slot twice in one tree. Slots are unique within the tree and
+ * every use of a slot lies in its let's body, so a slot bound anywhere in the collected parts is bound around all
+ * of its uses there.
+ */
 export function closeOver(node: IrNode, bindings: ReadonlyMap<number, IrNode>, arity = 2): IrNode {
-  const needed = new Set<number>();
+  const used = new Set<number>();
+  const boundInside = new Set<number>();
   const stack = [node];
   while (stack.length > 0) {
     const n = stack.pop()!;
-    if (n.op === 'var' && n.slot >= arity && !needed.has(n.slot)) {
-      needed.add(n.slot);
+    if (n.op === 'let') boundInside.add(n.slot);
+    if (n.op === 'var' && n.slot >= arity && !used.has(n.slot)) {
+      used.add(n.slot);
       const b = bindings.get(n.slot);
       if (b) stack.push(b);
     }
     stack.push(...irChildren(n));
   }
+  const needed = [...used].filter((slot) => !boundInside.has(slot));
   let body = node;
-  for (const slot of [...needed].sort((x, y) => y - x)) {
+  for (const slot of needed.sort((x, y) => y - x)) {
     const value = bindings.get(slot);
     if (value) body = { op: 'let', slot, value, body, range: node.range };
   }
