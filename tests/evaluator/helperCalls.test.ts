@@ -11,6 +11,7 @@
  *    kernel agrees bit for bit with the interpreter (checkEntries.ts), agrees with mathjs `evaluate` of the same
  *    expression with the helpers inlined textually, and every sub-expression closed over its bindings compiles
  *    and agrees with the interpreter too.
+ * 3. The same generated documents through analyzeText with numerics on: every one gets an answer, no exception.
  */
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
@@ -191,3 +192,14 @@ for (const complex of [false, true]) {
     });
   });
 }
+
+describe('helper calls: generated documents through the whole analysis', () => {
+  for (const complex of [false, true]) {
+    it(`analyzeText answers every document without an exception (${complex ? 'complex' : 'real'})`, () => {
+      fc.assert(fc.property(docArb(complex), (doc) => {
+        const analysis = analyzeText(`${doc.text}\n`);
+        expect(analysis.kernels.map((k) => k.name), doc.text).toEqual(['k']);
+      }), { seed: complex ? 7 : 8, numRuns: 25 });
+    });
+  }
+});
