@@ -74,15 +74,23 @@ export function degenerateSpectrum(
   const coarse = innerProducts(fs, gs, breakpoints, 40);
   const fine = innerProducts(fs, gs, breakpoints, 60);
   const r = terms.length;
+  // Frobenius norms scaled by the largest entry, so that neither 1e-300 (squares underflow) nor 1e307 (squares
+  // overflow) loses them.
+  let big = 0;
+  for (let k = 0; k < r * r; k++) {
+    if (!Number.isFinite(fine.re[k]) || !Number.isFinite(fine.im[k])) return null;
+    big = Math.max(big, Math.abs(fine.re[k]), Math.abs(fine.im[k]), Math.abs(coarse.re[k]), Math.abs(coarse.im[k]));
+  }
+  if (!Number.isFinite(big)) return null;
+  const unit = big > 0 ? big : 1;
   let dM = 0;
   let normM = 0;
   for (let k = 0; k < r * r; k++) {
-    if (!Number.isFinite(fine.re[k]) || !Number.isFinite(fine.im[k])) return null;
-    dM += (fine.re[k] - coarse.re[k]) ** 2 + (fine.im[k] - coarse.im[k]) ** 2;
-    normM += fine.re[k] ** 2 + fine.im[k] ** 2;
+    dM += ((fine.re[k] - coarse.re[k]) / unit) ** 2 + ((fine.im[k] - coarse.im[k]) / unit) ** 2;
+    normM += (fine.re[k] / unit) ** 2 + (fine.im[k] / unit) ** 2;
   }
-  dM = Math.sqrt(dM);
-  normM = Math.sqrt(normM);
+  dM = Math.sqrt(dM) * unit;
+  normM = Math.sqrt(normM) * unit;
   // A quadrature that has not settled between the two orders is not trusted (factors with singularities).
   if (dM > 1e-8 * Math.max(normM, 1e-300)) return null;
   const e = generalEigen(fine.re, fine.im, r);

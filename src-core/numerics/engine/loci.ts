@@ -245,11 +245,18 @@ class LociFinder {
     const corners = [[a, a], [a, b], [b, a], [b, b]].map(([t, s]) => x.ct * t + x.cs * s + x.c0);
     const lo = Math.min(...corners);
     const hi = Math.max(...corners);
+    // Every double of magnitude at least 2^52 is an integer, so floor is the identity there and jumps nowhere; and
+    // k++ would not move beyond 2^53 (the search for floor(s + 1e17) looped forever).
+    if (!Number.isFinite(lo) || !Number.isFinite(hi)) return null;
+    if (Math.min(Math.abs(lo), Math.abs(hi)) >= 2 ** 52 && Math.sign(lo) === Math.sign(hi)) return [];
     const first = Math.floor(lo) + 1;
     const last = Math.ceil(hi) - 1;
-    if (last - first + 1 > 64) return null;
+    if (!(last - first + 1 <= 64)) return null;
     const out: Line[] = [];
-    for (let k = first; k <= last; k++) {
+    // The trip count is at most 64 whatever the values: an index, not the (possibly unresolvable) integer, counts.
+    const count = Math.max(0, last - first + 1);
+    for (let i = 0; i < count; i++) {
+      const k = first + i;
       const l = normaliseLine({ ct: x.ct, cs: x.cs, c0: x.c0 - k });
       if (l) out.push(l);
     }

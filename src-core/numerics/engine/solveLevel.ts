@@ -56,7 +56,44 @@ function column(vectors: Float64Array, n: number, k: number): Float64Array {
   return v;
 }
 
+/**
+ * The solvers see the matrix scaled by a power of two (exact, no rounding) so that its largest entry is about 1:
+ * iterative deflation tests of the form |e| <= eps·(|a| + |b|) never meet subnormal numbers (a kernel of size
+ * 1e-300 made the QR sweeps loop), and products such as AᵀA neither underflow nor overflow. Eigenvalues and
+ * singular values are scaled back; eigenvectors do not change.
+ */
 export function solveLevel(matrix: GalerkinMatrix, keep: number, forceHermitian = false): LevelSolution {
+  let maxAbs = 0;
+  const { re, im } = matrix;
+  for (let k = 0; k < re.length; k++) maxAbs = Math.max(maxAbs, Math.abs(re[k]), im ? Math.abs(im[k]) : 0);
+  if (!(maxAbs > 0) || !Number.isFinite(maxAbs)) return solveScaled(matrix, keep, forceHermitian);
+  const exponent = Math.round(Math.log2(maxAbs));
+  if (Math.abs(exponent) <= 8) return solveScaled(matrix, keep, forceHermitian);
+  // Two factors so that neither 2^-exponent nor 2^exponent overflows on its own near the ends of the range.
+  const half = Math.trunc(exponent / 2);
+  const up = (x: number) => x * 2 ** half * 2 ** (exponent - half);
+  const scaled: GalerkinMatrix = {
+    ...matrix,
+    re: re.map((x) => x * 2 ** -half * 2 ** -(exponent - half)),
+    im: im ? im.map((x) => x * 2 ** -half * 2 ** -(exponent - half)) : null,
+  };
+  const sol = solveScaled(scaled, keep, forceHermitian);
+  return {
+    ...sol,
+    matrix,
+    pairs: sol.pairs.map((p) => ({
+      re: up(p.re), im: up(p.im),
+      get vecRe() { return p.vecRe; },
+      get vecIm() { return p.vecIm; },
+    })),
+    allRe: sol.allRe.map(up),
+    allIm: sol.allIm.map(up),
+    sigmaMax: up(sol.sigmaMax),
+    frobenius: up(sol.frobenius),
+  };
+}
+
+function solveScaled(matrix: GalerkinMatrix, keep: number, forceHermitian: boolean): LevelSolution {
   const { n, re, im } = matrix;
   let frob2 = 0;
   for (let k = 0; k < re.length; k++) frob2 += re[k] * re[k] + (im ? im[k] * im[k] : 0);

@@ -33,6 +33,12 @@ export interface SpectralResult {
   /** Reached relative accuracy (max eigenvalue error / norm) and the target it was held to. */
   readonly reached: number;
   readonly target: number;
+  /**
+   * Work units spent on the Galerkin levels (assembly plus dense solves, see workUnitsPerMs). A level is started
+   * only when its predicted work fits the budget, except the first three; so `work` stays below the budget plus
+   * the first three levels' work, and in practice within a small factor (about 1.5) of the budget.
+   */
+  readonly work: number;
 }
 
 const now = () => (typeof performance !== 'undefined' ? performance.now() : Date.now());
@@ -102,8 +108,10 @@ export function runSpectralEngine(
   const singularities = singularLoci
     .map((l) => estimateSingularity(kernel, l, a, b))
     .filter((s): s is SingularityEstimate => s !== null);
+  let spent = 0;
   const empty = (reason: string): SpectralResult => ({
     spectrum: null, reason, loci, singularities, finest: null, hermitian: false, defect: NaN, reached: NaN, target: NaN,
+    work: spent,
   });
   const fatal = singularities.find((s) => !s.integrable);
   if (fatal) {
@@ -122,7 +130,6 @@ export function runSpectralEngine(
   const count = options.eigenCount;
   const levels: LevelSolution[] = [];
   let lastWork = 0;
-  let spent = 0;
   const budget = options.timeBudgetMs * workUnitsPerMs;
   let reached = Infinity;
   let estimates: { eig: EigenEstimate[]; norm: Estimate; hs: Estimate | null } | null = null;
@@ -143,6 +150,12 @@ export function runSpectralEngine(
       break;
     }
     const sol = solveLevel(matrix, Math.max(count, 1) + 4);
+    if (!Number.isFinite(sol.sigmaMax) || !Number.isFinite(sol.frobenius)) {
+      // The entries are finite but the operator's size is beyond the double range: an evaluation fault, reported
+      // by the fault probe; no figure is better than an infinite one.
+      if (levels.length === 0) return empty('the Galerkin matrix of K is too large for double precision (its norm overflows)');
+      break;
+    }
     levels.push(sol);
     lastWork = levelWork(sol);
     spent += lastWork;
@@ -172,7 +185,7 @@ export function runSpectralEngine(
   };
   return {
     spectrum, reason: null, loci, singularities, finest, hermitian: finest.hermitian, defect: finest.defect,
-    reached, target,
+    reached, target, work: spent,
   };
 }
 
