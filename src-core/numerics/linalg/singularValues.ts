@@ -44,6 +44,21 @@ export function singularValues(re: Float64Array, im: Float64Array | null, rows: 
 }
 
 function svdValues(a: Float64Array, rows: number, cols: number): number[] {
+  // The library's QR sweeps have no iteration cap and loop forever on subnormal numbers (a 1e-300 matrix): scale
+  // by a power of two (exact) so the largest entry is about 1, and scale the values back.
+  let big = 0;
+  for (let k = 0; k < a.length; k++) big = Math.max(big, Math.abs(a[k]));
+  if (big === 0) return new Array<number>(Math.min(rows, cols)).fill(0);
+  const e = Math.round(Math.log2(big));
+  const h = Math.trunc(e / 2);
+  if (Math.abs(e) > 8) {
+    const scaled = a.map((x) => x * 2 ** -h * 2 ** -(e - h));
+    return svdValuesUnscaled(scaled, rows, cols).map((v) => v * 2 ** h * 2 ** (e - h));
+  }
+  return svdValuesUnscaled(a, rows, cols);
+}
+
+function svdValuesUnscaled(a: Float64Array, rows: number, cols: number): number[] {
   // ml-matrix's SVD expects at least as many rows as columns; the transpose has the same singular values.
   const tall = rows >= cols;
   const m = tall ? new Matrix(rows, cols) : new Matrix(cols, rows);
@@ -77,6 +92,17 @@ function descending(values: number[], count: number): Float64Array {
  */
 export function largestSingularValue(re: Float64Array, im: Float64Array | null, n: number): number {
   if (n <= 64) return singularValues(re, im, n, n)[0] ?? 0;
+  // AᵀA squares the entries: scale A by a power of two so that the product neither underflows nor overflows.
+  let big = 0;
+  for (let k = 0; k < re.length; k++) big = Math.max(big, Math.abs(re[k]), im ? Math.abs(im[k]) : 0);
+  if (big === 0) return 0;
+  const e = Math.round(Math.log2(big));
+  if (Math.abs(e) > 8) {
+    const h = Math.trunc(e / 2);
+    const sRe = re.map((x) => x * 2 ** -h * 2 ** -(e - h));
+    const sIm = im ? im.map((x) => x * 2 ** -h * 2 ** -(e - h)) : null;
+    return largestSingularValue(sRe, sIm, n) * 2 ** h * 2 ** (e - h);
+  }
   const complex = !isRealPart(im);
   const s = im as Float64Array;
   const m = complex ? 2 * n : n;
