@@ -58,6 +58,13 @@ function sampledDefect(ctx: CheckContext, nt: number, ns: number): { defect: num
   const gs = gaussGrid(a, b, ns);
   const k = sampleGrid(ctx.compiled, gt.nodes, gs.nodes); // K(t_i, s_j) at i * ns + j
   const m = sampleGrid(ctx.compiled, gs.nodes, gt.nodes); // K(s_j, t_i) at j * nt + i
+  // Sums of squares are taken relative to the largest finite value, so that kernels near 1e300 (squares
+  // overflow) or 1e-300 (squares underflow) still get a defect.
+  let big = 0;
+  for (const arr of [k.re, k.im, m.re, m.im]) {
+    if (arr) for (let p = 0; p < arr.length; p++) if (Number.isFinite(arr[p])) big = Math.max(big, Math.abs(arr[p]));
+  }
+  const unit = big > 0 ? big : 1;
   let num = 0;
   let den = 0;
   let worst = -1;
@@ -72,9 +79,9 @@ function sampledDefect(ctx: CheckContext, nt: number, ns: number): { defect: num
       const mi = m.im ? -m.im[q] : 0; // conj K(s, t)
       if (!Number.isFinite(kr) || !Number.isFinite(ki) || !Number.isFinite(mr) || !Number.isFinite(mi)) continue;
       const w = gt.weights[i] * gs.weights[j];
-      const d2 = (kr - mr) ** 2 + (ki - mi) ** 2;
+      const d2 = ((kr - mr) / unit) ** 2 + ((ki - mi) / unit) ** 2;
       num += w * d2;
-      den += w * 0.5 * (kr * kr + ki * ki + mr * mr + mi * mi);
+      den += w * 0.5 * ((kr / unit) ** 2 + (ki / unit) ** 2 + (mr / unit) ** 2 + (mi / unit) ** 2);
       if (d2 > worst) { worst = d2; worstAt = { i, j }; }
     }
   }

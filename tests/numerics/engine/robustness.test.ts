@@ -67,3 +67,12 @@ describe('values that overflow on part of the square', () => {
     expect(r.diagnostics.some((d) => d.code === 'KW301')).toBe(true);
   });
 });
+
+describe('symmetry defect of huge kernels', () => {
+  // sin(t − s) is antisymmetric: ‖K − K*‖/‖K‖ = 2 exactly (common practice), whatever the scale.
+  it('1e308·sin(t − s) gets defect 2, not NaN', () => {
+    const k = analyse('1e308*sin(t-s)').kernels[0];
+    expect(k.hermitian).not.toBeNull();
+    expect(Math.abs(k.hermitian!.defect - 2)).toBeLessThan(1e-6);
+  });
+});
