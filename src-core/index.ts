@@ -11,7 +11,7 @@ export { catalogue, entryByCode, nameByCode, formatMessage, type CatalogueEntry,
 export * from './semantics';
 export type * from './analysis/types';
 export { defaultAnalysisOptions } from './analysis/types';
-export { analyzeText, compareDiagnostics } from './analysis/analyze';
+export { analyzeText, compareDiagnostics, type PipelineHooks, type StopReason } from './analysis/analyze';
 export { clearSpectralCache, forgetSpectra } from './analysis/kernelAnalysis';
 export { runChecks, clearCheckCache, forgetChecks, isHermitianByConstruction, type CheckResults } from './checks';
 export * from './fixes';

@@ -11,6 +11,35 @@ import { defaultAnalysisOptions, type AnalysisOptions, type FileAnalysis, type K
 import { faultDiagnostics } from './faults';
 import { analyzeKernelNumerics } from './kernelAnalysis';
 import { runChecks } from '../checks';
+import { makeDiagnostic } from '../diagnostics/make';
+
+/**
+ * Why a front end's safety net stopped the analysis of a kernel in an earlier attempt: it ran far past its budget
+ * (`elapsedMs` of wall-clock time) or past the analysis memory limit (`limitMb`).
+ */
+export type StopReason =
+  | { readonly kind: 'time'; readonly elapsedMs: number }
+  | { readonly kind: 'memory'; readonly limitMb: number };
+
+/** What a front end that runs the analysis under a safety net (a watchdog over a worker thread) needs from it. */
+export interface PipelineHooks {
+  /** Called as the analysis of each kernel starts, with its name and definition hash (before any numerics). */
+  readonly onKernel?: (name: string, hash: string) => void;
+  /**
+   * Kernels (by definition hash) that the safety net stopped before: they are not analysed again, and each gets a
+   * diagnostic saying so (KW406 or KW407) in place of its figures.
+   */
+  readonly stopped?: ReadonlyMap<string, StopReason>;
+}
+
+function stoppedDiagnostic(k: KernelSymbol, reason: StopReason, budgetMs: number): Diagnostic {
+  return reason.kind === 'time'
+    ? makeDiagnostic('analysis-stopped', k.nameRange, {
+        name: k.name, seconds: (reason.elapsedMs / 1000).toFixed(1), budget: budgetMs,
+      }, { figures: { elapsedMs: reason.elapsedMs } })
+    : makeDiagnostic('analysis-out-of-memory', k.nameRange, { name: k.name, limitMb: reason.limitMb },
+        { figures: { limitMb: reason.limitMb } });
+}
 
 export function compareDiagnostics(a: Diagnostic, b: Diagnostic): number {
   return a.range.start - b.range.start || a.range.end - b.range.end || a.code.localeCompare(b.code);
@@ -20,6 +49,7 @@ export function analyzeText(
   text: string,
   options: Partial<AnalysisOptions> = {},
   token?: CancellationToken,
+  hooks: PipelineHooks = {},
 ): FileAnalysis {
   const opts: AnalysisOptions = { ...defaultAnalysisOptions, ...options };
   const source = parse(text);
@@ -33,6 +63,13 @@ export function analyzeText(
       kernels.push(base);
       continue;
     }
+    const stopped = k.hash ? hooks.stopped?.get(k.hash) : undefined;
+    if (stopped) {
+      diagnostics.push(stoppedDiagnostic(k, stopped, opts.timeBudgetMs));
+      kernels.push(base);
+      continue;
+    }
+    if (k.hash) hooks.onKernel?.(k.name, k.hash);
     const faults = faultDiagnostics(k);
     diagnostics.push(...faults.diagnostics);
     if (faults.blocking) {

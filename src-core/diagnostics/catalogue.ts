@@ -106,6 +106,11 @@ export const catalogue = {
   'methods-disagree': entry('KW403', 'warning', 'Two methods disagree', 'For “{name}”, the degenerate-kernel method gives λ{index} = {exact} but the Galerkin discretisation gives {galerkin} (difference {difference}, above the combined error estimate {error}).',
     'A separable kernel is solved twice, exactly through the small matrix of inner products and by discretisation; a disagreement beyond their error estimates points to a kernel the analysis does not handle well. Please report it with the kernel.'),
 
+  'analysis-stopped': entry('KW406', 'warning', 'Analysis stopped', 'The analysis of “{name}” was stopped after {seconds} s, far beyond its budget of {budget} ms of work; its spectrum and properties are not known.',
+    'A safety net stops the analysis of a kernel that runs far past its budget (something the engine’s own limits did not catch), so that the other kernels and files still get their answers. The kernel is skipped until its definition changes. Please report it with the kernel.'),
+  'analysis-out-of-memory': entry('KW407', 'warning', 'Analysis ran out of memory', 'The analysis of “{name}” needed more than the analysis memory limit of {limitMb} MB and was stopped; its spectrum and properties are not known.',
+    'The analysis runs with a fixed memory limit, so that one kernel cannot exhaust the machine. The kernel is skipped until its definition changes. Please report it with the kernel.'),
+
   // ---- KW5xx property checks (findings about a kernel that no claim covers; severities are settings) ----
   'not-hermitian': entry('KW501', 'info', 'Not Hermitian', 'Kernel “{name}” is not {what}: ‖K − K*‖/‖K‖ = {defect}; the largest difference is at t = {t}, s = {s}, where K(t, s) = {value} but {mirror} = {mirrored}.',
     'T is self-adjoint exactly when K(t, s) = conj K(s, t) (for a real kernel: K(t, s) = K(s, t)). The defect is measured on a grid of Gauss points and on the Galerkin matrix. Many models (covariances, Green’s functions of symmetric problems) need a self-adjoint operator; the quick fix replaces the kernel by its Hermitian part (K(t, s) + conj K(s, t)) / 2.'),
