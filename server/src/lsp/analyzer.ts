@@ -91,7 +91,9 @@ export class Analyzer {
 
   /** Analyses every open document again (settings changed, or the user asked). */
   reanalyseAll(clearCache: boolean): void {
+    // Kernels the safety net stopped are tried again: the new settings may change their budget or resolution.
     if (clearCache) this.host.worker.clearCache();
+    else this.host.worker.forgetStopped();
     for (const st of this.states.values()) {
       st.numeric = null;
       this.update(st.uri, st.version, st.text);

@@ -12,6 +12,7 @@ import {
   TextDocuments,
   TextDocumentSyncKind,
   type Connection,
+  type DidChangeTextDocumentParams,
   type InitializeParams,
   type InitializeResult,
 } from 'vscode-languageserver/node';
@@ -42,6 +43,31 @@ export function isKernelDocument(doc: TextDocument): boolean {
   return doc.languageId === languageId || doc.uri.toLowerCase().endsWith('.kw');
 }
 
+/**
+ * The connection as the document manager sees it, with every didChange checked first: a change without an integer
+ * version (or without a list of changes) cannot be ordered against the analyses in flight, so it is ignored, the
+ * document keeps its last consistent text and version, and the client is told in the log (a notification has no
+ * answer to carry an error).
+ */
+function withCheckedChanges(connection: Connection): Connection {
+  const onDidChangeTextDocument: Connection['onDidChangeTextDocument'] = (handler) =>
+    connection.onDidChangeTextDocument((params) => {
+      const p = params as Partial<DidChangeTextDocumentParams> | null | undefined;
+      const version: unknown = p?.textDocument?.version;
+      const uri: unknown = p?.textDocument?.uri;
+      if (typeof uri !== 'string' || !Number.isInteger(version) || !Array.isArray(p?.contentChanges)) {
+        const what = typeof uri === 'string' ? uri : 'a document';
+        const why = !Number.isInteger(version) ? `its version is ${JSON.stringify(version) ?? 'missing'}, not an integer` : 'it is malformed';
+        connection.console.error(`Kernwright: ignored a change to ${what}: ${why}; the server keeps the last text it had (close and reopen the file to resynchronise).`);
+        return;
+      }
+      return handler(params);
+    });
+  return new Proxy(connection, {
+    get: (target, key, receiver) => (key === 'onDidChangeTextDocument' ? onDidChangeTextDocument : Reflect.get(target, key, receiver)),
+  });
+}
+
 export function startServer(connection: Connection, workerScript = path.join(__dirname, 'worker.js')): void {
   let settings: ServerSettings = defaultSettings;
   const client: ClientFlags = { snippets: false, configuration: false, workDoneProgress: false, codeLensRefresh: false, showsFigures: false };
@@ -51,10 +77,11 @@ export function startServer(connection: Connection, workerScript = path.join(__d
 
   const worker = new WorkerClient({
     script: workerScript,
-    onRestart: (reason) => {
+    onRestart: (reason, stopped) => {
       const message = `Kernwright: the analysis worker stopped (${reason}) and was restarted; open files are analysed again.`;
       log(message);
-      if (!restartNoticeShown) {
+      // A stopped kernel is reported on its name (KW406/KW407); only a death nothing explains is worth a notice.
+      if (!stopped && !restartNoticeShown) {
         restartNoticeShown = true;
         void connection.sendNotification(ShowMessageNotification.type, { type: MessageType.Warning, message });
       }
@@ -136,7 +163,7 @@ export function startServer(connection: Connection, workerScript = path.join(__d
     }
   });
   documents.onDidClose((e) => analyzer.close(e.document.uri));
-  documents.listen(connection);
+  documents.listen(withCheckedChanges(connection));
 
   registerHover(ctx);
   registerCodeLens(ctx);

@@ -2,10 +2,12 @@
  * The analysis worker (server/dist/worker.js): runs the full analysis of a file, numerics included, off the main
  * thread. Jobs run one at a time in arrival order; a job whose shared flag is raised stops at the core's next
  * cancellation check and answers `cancelled`. The core's cache of kernel results lives as long as the worker.
+ * The start of every kernel is reported to the main thread, whose watchdog stops a worker stuck in one kernel.
  */
 import { parentPort } from 'node:worker_threads';
 import { analyzeText, CancelledError, clearCheckCache, clearSpectralCache, type CancellationToken } from '@kernwright/core';
 import { installMathjsSimplifier } from '../mathjsSimplifier';
+import { runKernelTestHook } from '../safetyNet';
 import type { FromWorker, ToWorker } from './workerProtocol';
 import { runWarmUpStep, warmUpSteps } from './warmUp';
 
@@ -74,7 +76,14 @@ function handle(message: ToWorker): void {
   }
   const started = performance.now();
   try {
-    const result = analyzeText(message.text, { ...message.options, numerics: true }, token);
+    const id = message.id;
+    const result = analyzeText(message.text, { ...message.options, numerics: true }, token, {
+      stopped: message.stopped,
+      onKernel: (name, hash) => {
+        post({ type: 'kernel', id, name, hash });
+        runKernelTestHook(name);
+      },
+    });
     // A cancelled analysis may return early with kernels left unanalysed: never report it as complete.
     if (token.isCancellationRequested) post({ type: 'cancelled', id: message.id });
     else post({ type: 'done', id: message.id, diagnostics: result.diagnostics, kernels: result.kernels, elapsedMs: performance.now() - started });

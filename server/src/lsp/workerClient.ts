@@ -1,10 +1,23 @@
 /**
  * The main thread's side of the analysis worker: submits jobs, cancels them through a shared flag, and keeps the
- * worker alive. When the worker dies, a new one is started at once and the jobs it held are submitted again (once;
- * a job that kills two workers fails). The owner is told of every restart and decides what to show the user.
+ * worker alive. The worker runs under a heap limit and reports the start of every kernel; a watchdog stops a worker
+ * whose current kernel runs far past its budget. When the worker dies, a new one is started at once and the jobs it
+ * held are submitted again. A death that a kernel explains (the watchdog fired, or the heap ran out during that
+ * kernel) marks the kernel as stopped, so the next attempt skips it and the core reports it (KW406/KW407); such
+ * deaths always make progress and are not counted. Any other death is counted: a job that kills two workers fails.
+ * The owner is told of every restart and decides what to show the user.
  */
 import { Worker } from 'node:worker_threads';
-import type { AnalysisOptions, Diagnostic, KernelReport } from '@kernwright/core';
+import { defaultAnalysisOptions, type AnalysisOptions, type Diagnostic, type KernelReport, type StopReason } from '@kernwright/core';
+import {
+  analysisMemoryLimitMb,
+  isOutOfMemory,
+  kernelTimeLimitMs,
+  KernelWatch,
+  StoppedKernels,
+  workerResourceLimits,
+  type WatchedKernel,
+} from '../safetyNet';
 import type { FromWorker, ToWorker } from './workerProtocol';
 
 export type JobOutcome =
@@ -23,19 +36,36 @@ interface PendingJob {
   readonly options: Partial<AnalysisOptions>;
   readonly cancelBuffer: SharedArrayBuffer;
   readonly resolve: (o: JobOutcome) => void;
-  attempts: number;
+  /** Worker deaths while this job was held that no kernel explains; the second one fails the job. */
+  deaths: number;
+}
+
+/** The kernel whose analysis a restart abandoned, when a kernel explains it. */
+export interface StoppedKernel {
+  readonly name: string;
+  readonly reason: StopReason;
 }
 
 export interface WorkerClientOptions {
   /** Path of the bundled worker script. */
   readonly script: string;
-  /** Called after the worker died and was replaced. */
-  readonly onRestart?: (reason: string) => void;
+  /** Called after the worker died (or was stopped) and was replaced; `stopped` names the kernel that caused it. */
+  readonly onRestart?: (reason: string, stopped?: StoppedKernel) => void;
+}
+
+/** One running worker, its watchdog, and the jobs posted to it and not answered yet (cancelled ones included). */
+interface Running {
+  readonly worker: Worker;
+  readonly watch: KernelWatch;
+  readonly posted: Map<number, PendingJob>;
+  /** The job whose kernel the watch times. */
+  watchedJob: number | null;
 }
 
 export class WorkerClient {
-  private worker: Worker | null = null;
+  private running: Running | null = null;
   private readonly pending = new Map<number, PendingJob>();
+  private readonly stopped = new StoppedKernels();
   private nextId = 1;
   private disposed = false;
   private restarts = 0;
@@ -52,7 +82,7 @@ export class WorkerClient {
     const flag = new Int32Array(cancelBuffer);
     let resolve!: (o: JobOutcome) => void;
     const outcome = new Promise<JobOutcome>((r) => (resolve = r));
-    const job: PendingJob = { id: this.nextId++, text, options, cancelBuffer, resolve, attempts: 0 };
+    const job: PendingJob = { id: this.nextId++, text, options, cancelBuffer, resolve, deaths: 0 };
     this.pending.set(job.id, job);
     this.send(job);
     return {
@@ -69,8 +99,15 @@ export class WorkerClient {
     if (!this.disposed) this.ensureWorker();
   }
 
+  /** Drops the worker's kernel cache and the record of stopped kernels (they are tried again). */
   clearCache(): void {
+    this.forgetStopped();
     this.post({ type: 'clear-cache' });
+  }
+
+  /** Tries every stopped kernel again on its next analysis (e.g. after the settings changed its budget). */
+  forgetStopped(): void {
+    this.stopped.clear();
   }
 
   /** Test hook: makes the worker exit (honoured only with KERNWRIGHT_LSP_TEST_HOOKS=1 in the environment). */
@@ -82,33 +119,58 @@ export class WorkerClient {
     this.disposed = true;
     for (const job of this.pending.values()) job.resolve({ kind: 'cancelled' });
     this.pending.clear();
-    void this.worker?.terminate();
-    this.worker = null;
+    const running = this.running;
+    this.running = null;
+    running?.watch.ended();
+    void running?.worker.terminate();
   }
 
   private send(job: PendingJob): void {
-    job.attempts++;
-    this.post({ type: 'analyze', id: job.id, text: job.text, options: job.options, cancel: job.cancelBuffer });
+    if (this.disposed) return;
+    const running = this.ensureWorker();
+    running.posted.set(job.id, job);
+    running.worker.postMessage({
+      type: 'analyze', id: job.id, text: job.text, options: job.options, cancel: job.cancelBuffer, stopped: this.stopped.snapshot(),
+    } satisfies ToWorker);
   }
 
   private post(message: ToWorker): void {
     if (this.disposed) return;
-    this.ensureWorker().postMessage(message);
+    this.ensureWorker().worker.postMessage(message);
   }
 
-  private ensureWorker(): Worker {
-    if (this.worker) return this.worker;
-    const worker = new Worker(this.options.script);
-    worker.on('message', (m: FromWorker) => this.receive(m));
-    worker.on('error', (error) => this.died(worker, error.message));
-    worker.on('exit', (code) => this.died(worker, `exit code ${code}`));
+  private ensureWorker(): Running {
+    if (this.running) return this.running;
+    const worker = new Worker(this.options.script, { resourceLimits: workerResourceLimits });
+    const running: Running = {
+      worker,
+      watch: new KernelWatch((kernel, elapsedMs) => this.kernelStuck(running, kernel, elapsedMs)),
+      posted: new Map(),
+      watchedJob: null,
+    };
+    worker.on('message', (m: FromWorker) => {
+      if (this.running === running) this.receive(running, m);
+    });
+    worker.on('error', (error) => this.died(running, error.message, error));
+    worker.on('exit', (code) => this.died(running, `exit code ${code}`));
     worker.unref();
-    this.worker = worker;
-    return worker;
+    this.running = running;
+    return running;
   }
 
-  private receive(m: FromWorker): void {
+  private receive(running: Running, m: FromWorker): void {
     if (m.type === 'ready') return;
+    if (m.type === 'kernel') {
+      const budget = running.posted.get(m.id)?.options.timeBudgetMs ?? defaultAnalysisOptions.timeBudgetMs;
+      running.watchedJob = m.id;
+      running.watch.started(m.name, m.hash, kernelTimeLimitMs(budget));
+      return;
+    }
+    running.posted.delete(m.id);
+    if (running.watchedJob === m.id) {
+      running.watch.ended();
+      running.watchedJob = null;
+    }
     const job = this.pending.get(m.id);
     if (!job) return; // cancelled meanwhile
     this.pending.delete(m.id);
@@ -117,18 +179,45 @@ export class WorkerClient {
     else job.resolve({ kind: 'failed', message: m.message });
   }
 
-  private died(worker: Worker, reason: string): void {
-    if (this.worker !== worker || this.disposed) return; // an old worker, already replaced, or shutting down
-    this.worker = null;
+  /** The watchdog fired: the worker is stuck in one kernel. */
+  private kernelStuck(running: Running, kernel: WatchedKernel, elapsedMs: number): void {
+    if (this.running !== running || this.disposed) return;
+    const reason: StopReason = { kind: 'time', elapsedMs };
+    this.stopped.add(kernel.hash, reason);
+    this.replace(running, `the analysis of kernel “${kernel.name}” ran ${(elapsedMs / 1000).toFixed(1)} s and was stopped`, { name: kernel.name, reason });
+    void running.worker.terminate();
+  }
+
+  private died(running: Running, reason: string, error?: unknown): void {
+    if (this.running !== running || this.disposed) return; // an old worker, already replaced, or shutting down
+    const kernel = running.watch.current;
+    if (kernel && error !== undefined && isOutOfMemory(error)) {
+      const stop: StopReason = { kind: 'memory', limitMb: analysisMemoryLimitMb };
+      this.stopped.add(kernel.hash, stop);
+      this.replace(running, `the analysis of kernel “${kernel.name}” ran out of memory (${reason})`, { name: kernel.name, reason: stop });
+      return;
+    }
+    this.replace(running, reason);
+  }
+
+  /**
+   * Replaces a dead or stuck worker and submits its pending jobs again (jobs cancelled meanwhile are dropped). A
+   * death no kernel explains counts against every job it held.
+   */
+  private replace(running: Running, reason: string, stopped?: StoppedKernel): void {
+    running.watch.ended();
+    this.running = null;
     this.restarts++;
-    const jobs = [...this.pending.values()];
-    for (const job of jobs) {
-      if (job.attempts >= 2) {
-        this.pending.delete(job.id);
-        job.resolve({ kind: 'failed', message: `the analysis worker stopped twice on this file (${reason})` });
+    if (!stopped) {
+      for (const job of [...this.pending.values()]) {
+        if (++job.deaths >= 2) {
+          this.pending.delete(job.id);
+          job.resolve({ kind: 'failed', message: `the analysis worker stopped twice on this file (${reason})` });
+        }
       }
     }
-    this.options.onRestart?.(reason);
+    this.options.onRestart?.(reason, stopped);
+    this.ensureWorker();
     for (const job of this.pending.values()) this.send(job);
   }
 }

@@ -3,7 +3,7 @@
  * core's per-kernel cache survives from one edit to the next; each job carries a shared cancellation flag that the
  * main thread raises when a newer edit makes the job pointless.
  */
-import type { AnalysisOptions, Diagnostic, KernelReport } from '@kernwright/core';
+import type { AnalysisOptions, Diagnostic, KernelReport, StopReason } from '@kernwright/core';
 
 export interface AnalyzeJob {
   readonly type: 'analyze';
@@ -12,6 +12,8 @@ export interface AnalyzeJob {
   readonly options: Partial<AnalysisOptions>;
   /** Int32Array over a SharedArrayBuffer of one element: 0 = go on, 1 = cancelled. */
   readonly cancel: SharedArrayBuffer;
+  /** Kernels (by definition hash) the safety net stopped before: the core reports them (KW406/KW407) unanalysed. */
+  readonly stopped: ReadonlyMap<string, StopReason>;
 }
 
 export interface ClearCache {
@@ -27,6 +29,8 @@ export type ToWorker = AnalyzeJob | ClearCache | CrashForTest;
 
 export type FromWorker =
   | { readonly type: 'ready' }
+  /** The analysis of a kernel of job `id` starts (the main thread's watchdog times it). */
+  | { readonly type: 'kernel'; readonly id: number; readonly name: string; readonly hash: string }
   | {
       readonly type: 'done';
       readonly id: number;
