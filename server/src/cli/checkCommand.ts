@@ -4,7 +4,8 @@
  * or huge files) are all reported before any analysis starts, and then no report is printed: the exit code is 2.
  *
  * Files are reported in file order whichever thread finished first, so a parallel run prints exactly what a
- * sequential one prints. On a terminal a progress line on stderr shows how far the check is.
+ * sequential one prints. The numerics run in worker threads under the safety net (parallel.ts): a kernel stopped
+ * by it is reported as a warning (KW406 or KW407) like any other finding, and the rest of its file is analysed. On a terminal a progress line on stderr shows how far the check is.
  */
 import * as path from 'node:path';
 import {
@@ -23,7 +24,7 @@ import { colourCheckLine, colourText } from './colour';
 import { discoverFiles } from './discover';
 import { ExitCode, exitCodeFor } from './exitCode';
 import type { CliIo } from './io';
-import { chooseThreads, runInWorkers, workerScript } from './parallel';
+import { chooseThreads, runInWorkers, workerScript, type StoppedByJob } from './parallel';
 import { createProgress } from './progress';
 import { readSource } from './readSource';
 import { toolName, toolVersion } from './version';
@@ -91,18 +92,25 @@ export async function runCheck(options: CheckOptions, io: CliIo, analyze?: Analy
       io.out(colourText(lines.join('\n'), io, colourCheckLine) + '\n');
     }
   };
+  const stopped: StoppedByJob = new Map();
   const analyseHere = (index: number): void => {
     const source = sources[index];
     try {
-      const analysis = (analyze ?? analyzeText)(source.text, analysisOptions);
+      const earlier = stopped.get(index);
+      const analysis = analyze
+        ? analyze(source.text, analysisOptions)
+        : analyzeText(source.text, analysisOptions, undefined, earlier ? { stopped: earlier.snapshot() } : {});
       report(index, { path: source.path, text: source.text, diagnostics: analysis.diagnostics, kernels: analysis.kernels });
     } catch (error) {
       report(index, null, errorMessage(error));
     }
   };
 
+  // With numerics, the bundled program analyses even a single file in a worker, under the safety net (a worker
+  // costs tens of milliseconds); the files a worker could not finish, and every file when the program runs from
+  // its TypeScript sources or with an injected analyser, are analysed in this thread.
   const threads = chooseThreads(sources.length, options.jobs, options.numerics);
-  const script = analyze === undefined && threads > 1 ? workerScript() : null;
+  const script = analyze === undefined && (options.numerics || threads > 1) && sources.length > 0 ? workerScript() : null;
   let leftOver = sources.map((_, k) => k);
   if (script) {
     const jobs = sources.map((s, index) => ({ index, text: s.text, options: analysisOptions }));
@@ -110,7 +118,7 @@ export async function runCheck(options: CheckOptions, io: CliIo, analyze?: Analy
       const source = sources[r.index];
       if (r.ok) report(r.index, { path: source.path, text: source.text, diagnostics: r.diagnostics, kernels: r.kernels });
       else report(r.index, null, r.message);
-    });
+    }, stopped);
   }
   for (const index of leftOver) analyseHere(index);
   progress.clear();

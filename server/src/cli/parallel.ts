@@ -4,14 +4,30 @@
  * any order; the caller puts them back in file order, so the report is the same as a sequential run's.
  *
  * Parallel work pays only when there are several files to analyse numerically (a worker costs tens of
- * milliseconds to start). When the worker script is missing (running from the TypeScript sources) or a worker
- * fails, the files it did not finish are handed back for the caller to analyse in its own thread.
+ * milliseconds to start), but a single file is analysed in a worker too when the script is there, for the safety
+ * net. When the worker script is missing (running from the TypeScript sources) or a worker fails, the files it did
+ * not finish are handed back for the caller to analyse in its own thread.
  */
 import * as fs from 'node:fs';
 import * as os from 'node:os';
 import * as path from 'node:path';
 import { Worker } from 'node:worker_threads';
-import { checkWorkerRole, type CheckJob, type CheckJobResult } from './checkWorker';
+import { defaultAnalysisOptions, type StopReason } from '@kernwright/core';
+import {
+  analysisMemoryLimitMb,
+  isOutOfMemory,
+  KernelWatch,
+  kernelTimeLimitMs,
+  StoppedKernels,
+  workerResourceLimits,
+} from '../safetyNet';
+import {
+  checkWorkerRole,
+  isKernelStarted,
+  type CheckJob,
+  type CheckJobResult,
+  type CheckWorkerMessage,
+} from './checkWorker';
 
 /** Below this many files a pool is not worth starting. */
 export const parallelThreshold = 4;
@@ -47,28 +63,45 @@ export function chooseThreads(
   return Math.max(1, Math.min(idle, files, maxThreads));
 }
 
+/** The kernels the safety net stopped, per job index (filled by `runInWorkers`). */
+export type StoppedByJob = Map<number, StoppedKernels>;
+
+/** How many times one file is started again after the net stopped one of its kernels, at most. */
+const maxRestartsPerJob = 64;
+
 /**
  * Runs the jobs on `threads` workers of `script`, calling `onResult` for each as it arrives. Resolves with the
  * indices of the jobs no worker finished (a worker that failed to start or died), for the caller to run itself.
+ *
+ * Each worker runs under the safety net (safetyNet.ts): a heap limit, and a watchdog over the kernel it is analysing.
+ * When a kernel runs past its time limit, or the worker dies out of memory during a kernel, the worker is replaced
+ * and the same file is analysed again with that kernel marked as stopped (the core reports KW406 or KW407 for it and
+ * analyses the file's other kernels as usual). `stopped`, when given, receives the kernels stopped per job, so that
+ * a caller that analyses a handed-back job itself does not run a stopped kernel again.
  */
 export function runInWorkers(
   jobs: readonly CheckJob[],
   threads: number,
   script: string,
   onResult: (result: CheckJobResult) => void,
+  stopped: StoppedByJob = new Map(),
 ): Promise<number[]> {
   return new Promise((resolve) => {
     let next = 0;
     let live = 0;
+    /** Jobs to run again (with a stopped kernel), before the next new one. */
+    const again: CheckJob[] = [];
+    const restarts = new Map<number, number>();
     const finished = new Set<number>();
     const settle = (): void => {
       if (live > 0) return;
       resolve(jobs.map((j) => j.index).filter((i) => !finished.has(i)));
     };
+    const take = (): CheckJob | undefined => again.shift() ?? (next < jobs.length ? jobs[next++] : undefined);
     const start = (): void => {
       let worker: Worker;
       try {
-        worker = new Worker(script, { workerData: { role: checkWorkerRole } });
+        worker = new Worker(script, { workerData: { role: checkWorkerRole }, resourceLimits: workerResourceLimits });
       } catch {
         return;
       }
@@ -78,26 +111,65 @@ export function runInWorkers(
       const stop = (): void => {
         if (done) return;
         done = true;
+        watch.ended();
         live--;
         void worker.terminate();
         settle();
       };
+      /** The net stopped the current kernel: replace this worker and run its file again without that kernel. */
+      const restart = (hash: string, reason: StopReason): void => {
+        const job = current;
+        if (done || !job) return;
+        done = true;
+        watch.ended();
+        void worker.terminate();
+        const kernels = stopped.get(job.index) ?? new StoppedKernels();
+        kernels.add(hash, reason);
+        stopped.set(job.index, kernels);
+        const count = (restarts.get(job.index) ?? 0) + 1;
+        restarts.set(job.index, count);
+        if (count > maxRestartsPerJob) {
+          finished.add(job.index);
+          onResult({ index: job.index, ok: false, message: `the safety net stopped the analysis ${count} times` });
+        } else {
+          again.unshift({ ...job, stopped: kernels.snapshot() });
+        }
+        live--;
+        start();
+        settle();
+      };
+      const watch = new KernelWatch((kernel, elapsedMs) => restart(kernel.hash, { kind: 'time', elapsedMs }));
       const feed = (): void => {
-        current = next < jobs.length ? jobs[next++] : undefined;
+        current = take();
         if (current) worker.postMessage(current);
         else stop();
       };
-      worker.on('message', (result: CheckJobResult) => {
-        finished.add(result.index);
-        onResult(result);
+      worker.on('message', (message: CheckWorkerMessage) => {
+        if (done) return;
+        if (isKernelStarted(message)) {
+          if (current && message.index === current.index) watch.started(message.name, message.hash, limitFor(current));
+          return;
+        }
+        watch.ended();
+        finished.add(message.index);
+        onResult(message);
         feed();
       });
-      // A worker that fails leaves its job unfinished; the others carry on with the rest.
-      worker.on('error', stop);
+      worker.on('error', (error: unknown) => {
+        const kernel = watch.current;
+        if (!done && kernel && isOutOfMemory(error)) restart(kernel.hash, { kind: 'memory', limitMb: analysisMemoryLimitMb });
+        // Any other failure leaves its job unfinished; the others carry on with the rest.
+        else stop();
+      });
       worker.on('exit', stop);
       feed();
     };
     for (let k = 0; k < Math.min(threads, jobs.length); k++) start();
     settle();
   });
+}
+
+/** The watchdog's limit for a kernel of this job, from the job's time budget. */
+function limitFor(job: CheckJob): number {
+  return kernelTimeLimitMs(job.options.timeBudgetMs ?? defaultAnalysisOptions.timeBudgetMs);
 }
