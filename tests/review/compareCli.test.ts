@@ -1,7 +1,8 @@
 /**
  * `kernwright compare` run as a user runs it: two files, two folders, the working tree against a git revision and
  * two revisions (in temporary repositories made here), the three formats, the limits and every exit code, and the
- * bad inputs (missing and binary files, unknown revisions, folders outside a repository, broken versions).
+ * bad inputs (missing and binary files, unknown revisions, folders outside a repository, broken versions), revisions
+ * that look like options, and file names with spaces, newlines, tabs, quotes, escape sequences and non-ASCII letters.
  */
 import { spawnSync } from 'node:child_process';
 import * as fs from 'node:fs';
@@ -208,8 +209,8 @@ describe('compare --base (git)', () => {
   });
 
   it('exit 2 for an unknown revision, a path outside any repository and a path that exists nowhere', () => {
-    expectCleanFailure(run('compare', '--base', 'no-such-rev'), 2, /unknown revision 'no-such-rev'/);
-    expectCleanFailure(run('compare', '--base', 'HEAD', '--head', 'nope'), 2, /unknown revision 'nope'/);
+    expectCleanFailure(run('compare', '--base', 'no-such-rev'), 2, /'no-such-rev' names no commit/);
+    expectCleanFailure(run('compare', '--base', 'HEAD', '--head', 'nope'), 2, /'nope' names no commit/);
     expectCleanFailure(run('compare', '--base', '--weird'), 2, /option --base needs a value/);
     expectCleanFailure(run('compare', '--base', 'HEAD', 'models/never.kw'), 2, /cannot find 'models\/never\.kw' in the working tree or at 'HEAD'/);
     expectCleanFailure(h.run(work, ['compare', '--base', 'HEAD', 'old']), 2, /'old' is not inside a git repository/);
@@ -227,5 +228,117 @@ describe('compare --base (git)', () => {
     } finally {
       fs.rmSync(bin, { recursive: true, force: true });
     }
+  });
+});
+
+// File names with a newline or a tab cannot exist on Windows.
+describe.skipIf(process.platform === 'win32')('compare --base: revisions that look like options, and paths of every kind', () => {
+  let repo = '';
+  const run = (...args: string[]) => h.run(repo, [...args, ...budget]);
+  const product = '# Invented test scenario.\ndomain [0, 1]\nkernel k(t, s) = t * s\n';
+  const sum = '# Invented test scenario.\ndomain [0, 1]\nkernel k(t, s) = t + s\n';
+  const square = '# Invented test scenario.\ndomain [0, 1]\nkernel square(t, s) = t * t * s * s\n';
+  const newline = 'line\nbreak.kw';
+  const tab = 'tab\there.kw';
+  const escape = 'clear\u001b[2J.kw';
+  const statuses = (r: Run) => {
+    expect(r.stderr).toBe('');
+    return Object.fromEntries(JSON.parse(r.stdout).files.map((f: { path: string; status: string }) => [f.path, f.status]));
+  };
+
+  beforeAll(() => {
+    repo = fs.mkdtempSync(path.join(os.tmpdir(), 'kw-gitnames-'));
+    gitIn(repo, 'init', '-q');
+    writeTree(repo, { 'a b.kw': product, [newline]: product, [tab]: product, '核.kw': product, 'say "hi".kw': product });
+    gitIn(repo, 'add', '-A');
+    gitIn(repo, 'commit', '-q', '-m', 'first');
+    // Second commit: the newline file changes, 'a b.kw' is moved to 'Übung 1.kw', a file with an escape sequence appears.
+    writeTree(repo, { [newline]: sum, [escape]: square });
+    gitIn(repo, 'mv', 'a b.kw', 'Übung 1.kw');
+    gitIn(repo, 'add', '-A');
+    gitIn(repo, 'commit', '-q', '-m', 'second');
+    // Working tree, not committed: the tab file changes.
+    writeTree(repo, { [tab]: sum });
+  }, 120_000);
+
+  afterAll(() => {
+    if (repo) fs.rmSync(repo, { recursive: true, force: true });
+  });
+
+  it('refuses a revision that starts with "-" (exit 2) and git never reads it as an option', () => {
+    const written = path.join(repo, 'written-by-git');
+    for (const rev of ['-p', `--output=${written}`, '--end-of-options']) {
+      const escaped = rev.replace(/[.\\/-]/g, (ch) => `\\${ch}`);
+      const refusal = new RegExp(`'${escaped}' is not a revision: a revision cannot start with '-'`);
+      expectCleanFailure(run('compare', `--base=${rev}`), 2, refusal);
+      expectCleanFailure(run('compare', `--base=${rev}`, 'a b.kw'), 2, refusal);
+      expectCleanFailure(run('compare', '--base', 'HEAD', `--head=${rev}`), 2, refusal);
+      expectCleanFailure(run('compare', `--base=${rev}`, '--head', 'HEAD'), 2, refusal);
+    }
+    expect(fs.existsSync(written)).toBe(false);
+  });
+
+  it('a revision that names no commit is a clear error (exit 2), not every file "added"', () => {
+    expectCleanFailure(run('compare', '--base=^HEAD', '核.kw'), 2, /'\^HEAD' names no commit in the repository at /);
+    expectCleanFailure(run('compare', '--base', '^HEAD'), 2, /'\^HEAD' names no commit/);
+    expectCleanFailure(run('compare', '--base', 'HEAD', '--head', '^HEAD'), 2, /'\^HEAD' names no commit/);
+    expectCleanFailure(run('compare', '--base', 'no-such-rev'), 2, /'no-such-rev' names no commit/);
+    expectCleanFailure(run('compare', '--base', 'HEAD~5'), 2, /'HEAD~5' names no commit/);
+    // A tree is an object but not a commit.
+    expectCleanFailure(run('compare', '--base', 'HEAD^{tree}'), 2, /'HEAD\^\{tree\}' names no commit/);
+  });
+
+  it('compares the working tree with HEAD and with HEAD~1, whatever the file names hold', () => {
+    expect(statuses(run('compare', '--base', 'HEAD', '--format', 'json'))).toEqual({
+      [escape]: 'unchanged',
+      [newline]: 'unchanged',
+      'say "hi".kw': 'unchanged',
+      [tab]: 'modified',
+      'Übung 1.kw': 'unchanged',
+      '核.kw': 'unchanged',
+    });
+    expect(statuses(run('compare', '--base', 'HEAD~1', '--format', 'json', newline, tab, '核.kw', 'say "hi".kw', 'Übung 1.kw'))).toEqual({
+      [newline]: 'modified',
+      [tab]: 'modified',
+      '核.kw': 'unchanged',
+      'say "hi".kw': 'unchanged',
+      'Übung 1.kw': 'added',
+    });
+  });
+
+  it('compares two revisions, with and without paths, whatever the file names hold', () => {
+    expect(statuses(run('compare', '--base', 'HEAD~1', '--head', 'HEAD', '--format', 'json'))).toEqual({
+      [escape]: 'added',
+      [newline]: 'modified',
+      'Übung 1.kw': 'unchanged',
+    });
+    // With both names of the moved file given, git sees the move; with the new name only, an added file.
+    expect(statuses(run('compare', '--base', 'HEAD~1', '--head', 'HEAD', '--format', 'json', newline, 'a b.kw', 'Übung 1.kw'))).toEqual({
+      [newline]: 'modified',
+      'Übung 1.kw': 'unchanged',
+    });
+    expect(statuses(run('compare', '--base', 'HEAD~1', '--head', 'HEAD', '--format', 'json', 'Übung 1.kw'))).toEqual({ 'Übung 1.kw': 'added' });
+    // Paths are matched as written, never as patterns.
+    expect(statuses(run('compare', '--base', 'HEAD~1', '--head', 'HEAD', '--format', 'json', '*.kw'))).toEqual({});
+  });
+
+  it('prints a path with a newline, a tab or an escape sequence quoted and escaped, so it cannot fake a line', () => {
+    const text = run('compare', '--base', 'HEAD~1', '--head', 'HEAD');
+    expect(text.status).toBe(0);
+    expect(text.stdout).toContain('"line\\nbreak.kw": modified\n');
+    expect(text.stdout).toContain('"clear\\x1b[2J.kw": file added\n');
+    expect(text.stdout).toContain('Übung 1.kw: unchanged (1 kernel)\n');
+    expect(text.stdout).not.toMatch(/^break\.kw/m);
+    expect(text.stdout).not.toContain('\u001b');
+    const tabbed = run('compare', '--base', 'HEAD', tab, 'say "hi".kw', '核.kw');
+    expect(tabbed.stdout).toContain('"tab\\there.kw": modified\n');
+    expect(tabbed.stdout).toContain('say "hi".kw: unchanged (1 kernel)\n');
+    expect(tabbed.stdout).toContain('核.kw: unchanged (1 kernel)\n');
+    expect(tabbed.stdout).not.toContain('\t');
+    const md = run('compare', '--base', 'HEAD~1', '--head', 'HEAD', '--format', 'markdown');
+    expect(md.stdout).toContain('"line\\nbreak.kw"');
+    expect(md.stdout).not.toMatch(/^break\.kw/m);
+    // Messages on standard error stay one line each.
+    expectCleanFailure(run('compare', '--base', 'HEAD', 'missing\nfile.kw'), 2, /cannot find 'missing\\nfile\.kw' in the working tree or at 'HEAD'/);
   });
 });

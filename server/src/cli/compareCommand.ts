@@ -6,6 +6,11 @@
  * or a new version with errors; 2 bad usage or input that cannot be compared (a missing path, an unknown
  * revision, a binary or unreadable file, a file neither of whose versions parses cleanly). With exit code 2
  * nothing is printed on standard output.
+ *
+ * A file name may hold any character but '/' and NUL, and a newline or an escape sequence in one must not fake a line
+ * of the report: in text and markdown a path with a control character (or one that starts with '"') is printed
+ * quoted, with C-style escapes (`"a\nb.kw"`), and messages on standard error have their control characters
+ * escaped. JSON keeps every path as it is (JSON escapes it).
  */
 import {
   compareFileVersions,
@@ -25,6 +30,30 @@ import type { CliIo } from './io';
 import { createProgress } from './progress';
 import { toolName, toolVersion } from './version';
 
+/**
+ * C0 and C1 controls, DEL, the Unicode line and paragraph separators, and the bidirectional controls that reorder
+ * what a terminal shows.
+ */
+const unsafeChar = /[\u0000-\u001f\u007f-\u009f\u061c\u200e\u200f\u2028\u2029\u202a-\u202e\u2066-\u2069]/u;
+const unsafe = new RegExp(unsafeChar.source, 'gu');
+
+function escapeChar(ch: string): string {
+  const named: Record<string, string> = { '\n': '\\n', '\t': '\\t', '\r': '\\r' };
+  const code = ch.codePointAt(0)!;
+  return named[ch] ?? (code < 0x100 ? `\\x${code.toString(16).padStart(2, '0')}` : `\\u{${code.toString(16)}}`);
+}
+
+/** A message for standard error on one line, whatever the paths in it hold. */
+export function escapeMessage(message: string): string {
+  return message.replace(unsafe, escapeChar);
+}
+
+/** A path as the text and markdown reports show it: as it is, or quoted with escapes when it holds a control. */
+export function shownPath(p: string): string {
+  if (!unsafeChar.test(p) && !p.startsWith('"')) return p;
+  return `"${p.replace(/[\\"]/g, (ch) => `\\${ch}`).replace(unsafe, escapeChar)}"`;
+}
+
 function errorMessage(error: unknown): string {
   return error instanceof Error ? error.message : String(error);
 }
@@ -32,7 +61,7 @@ function errorMessage(error: unknown): string {
 export async function runCompare(options: CompareCommandOptions, io: CliIo): Promise<number> {
   const { pairs, problems } = gatherPairs(options.sources);
   if (problems.length > 0) {
-    problems.forEach(io.err);
+    problems.map(escapeMessage).forEach(io.err);
     return ExitCode.usage;
   }
   const analysis: Partial<AnalysisOptions> = {
@@ -42,19 +71,23 @@ export async function runCompare(options: CompareCommandOptions, io: CliIo): Pro
   const progress = createProgress(io, pairs.length, 'comparing');
   const files: FileComparison[] = [];
   const refusals: string[] = [];
+  const shown = options.format === 'json' ? (p: string) => p : shownPath;
+  const shownOrNull = (p: string | null) => (p === null ? null : shown(p));
   for (const pair of pairs) {
     try {
       const result = compareFileVersions(pair.old, pair.new, { analysis });
-      if (result.ok) files.push({ ...result.file, path: pair.path });
-      else refusals.push(result.message);
+      if (result.ok) {
+        const f = result.file;
+        files.push({ ...f, path: shown(pair.path), oldPath: shownOrNull(f.oldPath), newPath: shownOrNull(f.newPath) });
+      } else refusals.push(result.message);
     } catch (error) {
       refusals.push(`internal error while comparing '${pair.path}': ${errorMessage(error)} (please report this)`);
     }
-    progress.tick(pair.path);
+    progress.tick(shownPath(pair.path));
   }
   progress.clear();
   if (refusals.length > 0) {
-    refusals.forEach(io.err);
+    refusals.map(escapeMessage).forEach(io.err);
     return ExitCode.usage;
   }
   const result = comparison(files);

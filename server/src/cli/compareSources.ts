@@ -6,7 +6,9 @@
  *   --base REV --head REV2   every .kw file that differs between the revisions (`git diff --name-status -z`).
  * A file present on one side only pairs with null (added or removed). Every problem (a missing path, an unknown
  * revision, a folder outside a repository, an unreadable or binary file) is collected as a one-line message; the
- * command prints them and stops before comparing anything.
+ * command prints them and stops before comparing anything. A revision is checked before any repository is looked
+ * at (gitFiles.ts says how it reaches git); paths stay whole strings from the command line or from git's `-z`
+ * output to the pairs, whatever characters they hold.
  */
 import * as fs from 'node:fs';
 import * as path from 'node:path';
@@ -14,7 +16,7 @@ import type { VersionText } from '@kernwright/core';
 import type { CompareSources } from './args';
 import { discoverFiles, isKernelFileName } from './discover';
 import { describeFsError } from './fsErrors';
-import { changedFiles, listFiles, repositoryPath, repositoryRoot, resolveRevision, showFile } from './gitFiles';
+import { changedFiles, listFiles, repositoryPath, repositoryRoot, resolveRevision, revisionSyntaxProblem, showFile, type Commit } from './gitFiles';
 import { decodeSource, readSource } from './readSource';
 
 export interface SourcePair {
@@ -102,8 +104,10 @@ function gatherPaths(oldPath: string, newPath: string, c: Collector): void {
 
 /** The working tree's version and the version at `revision` of every .kw file under each path. */
 function gatherBase(revision: string, inputs: readonly string[], c: Collector): void {
+  const syntax = revisionSyntaxProblem(revision);
+  if (syntax !== null) { c.problems.push(syntax); return; }
   const seen = new Set<string>();
-  const commits = new Map<string, string | null>();
+  const commits = new Map<string, Commit | null>();
   for (const input of inputs) {
     const exists = fs.existsSync(input);
     const dir = exists && fs.statSync(input).isDirectory() ? input : path.dirname(path.resolve(input));
@@ -156,6 +160,8 @@ function gatherBase(revision: string, inputs: readonly string[], c: Collector): 
 
 /** Every .kw file that differs between two revisions of the repository that holds the working folder. */
 function gatherRange(base: string, head: string, pathspecs: readonly string[], c: Collector): void {
+  const syntax = [base, head].map(revisionSyntaxProblem).filter((p) => p !== null);
+  if (syntax.length > 0) { c.problems.push(...syntax); return; }
   const root = repositoryRoot(process.cwd());
   if (!root.ok) { c.problems.push(root.message); return; }
   const b = resolveRevision(root.value, base);
@@ -170,13 +176,13 @@ function gatherRange(base: string, head: string, pathspecs: readonly string[], c
     const relevant = [f.oldPath, f.newPath].some((p) => p !== null && isKernelFileName(p));
     if (!relevant) continue;
     const shown = slash(path.relative(process.cwd(), path.join(root.value, f.newPath ?? f.oldPath!)));
-    const read = (rev: string, p: string | null): VersionText | null => {
+    const read = (commit: Commit, p: string | null): VersionText | null => {
       if (p === null) return null;
-      const bytes = showFile(root.value, rev, p);
+      const bytes = showFile(root.value, commit, p);
       if (!bytes.ok) { c.problems.push(bytes.message); return null; }
-      return bytes.value ? c.fromBytes(`${rev}:${p}`, bytes.value) : null;
+      return bytes.value ? c.fromBytes(`${commit.name}:${p}`, bytes.value) : null;
     };
-    c.pairs.push({ path: shown, old: read(base, f.oldPath), new: read(head, f.newPath) });
+    c.pairs.push({ path: shown, old: read(b.value, f.oldPath), new: read(h.value, f.newPath) });
   }
 }
 

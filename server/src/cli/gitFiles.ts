@@ -4,6 +4,12 @@
  * (`git show <rev>:<path>`), the kernel files under a folder at a revision, and the files changed between two
  * revisions (`git diff --name-status -z`). Read-only: nothing here changes a repository. Every failure comes back
  * as a one-line message.
+ *
+ * What the user typed reaches git in two places only, and neither can be read as an option or as pathspec magic:
+ * a revision, refused when it starts with '-' and otherwise given to `git rev-parse --verify --end-of-options`,
+ * which must answer with one commit id (`^HEAD` or a typo names none); and paths, always after `--`, matched
+ * literally (`--literal-pathspecs`) or written after `<commit>:`. Every later call names the commit by its id.
+ * Paths come back NUL-separated (`-z`) and are never split on newlines.
  */
 import { spawnSync } from 'node:child_process';
 import * as fs from 'node:fs';
@@ -14,7 +20,7 @@ export type GitAnswer<T> = { readonly ok: true; readonly value: T } | { readonly
 const maxBuffer = 256 * 1024 * 1024;
 
 function git(cwd: string, args: readonly string[]): { status: number; stdout: Buffer; stderr: string } | { status: 'missing' } {
-  const r = spawnSync('git', args, { cwd, maxBuffer, windowsHide: true });
+  const r = spawnSync('git', ['--literal-pathspecs', ...args], { cwd, maxBuffer, windowsHide: true });
   if (r.error) {
     if ((r.error as NodeJS.ErrnoException).code === 'ENOENT') return { status: 'missing' };
     return { status: -1, stdout: Buffer.alloc(0), stderr: r.error.message };
@@ -37,13 +43,32 @@ export function repositoryRoot(dir: string): GitAnswer<string> {
   return { ok: true, value: fs.realpathSync(r.stdout.toString('utf8').trim()) };
 }
 
+/** Why `revision` cannot be a revision before git is asked (it is empty or would read as an option), or null. */
+export function revisionSyntaxProblem(revision: string): string | null {
+  if (revision.trim() === '') return 'the revision is empty';
+  if (revision.startsWith('-')) return `'${revision}' is not a revision: a revision cannot start with '-'`;
+  return null;
+}
+
+/** A full object id as `git rev-parse` prints it (SHA-1 or SHA-256). */
+const objectId = /^(?:[0-9a-f]{40}|[0-9a-f]{64})$/;
+
+/** A commit: its id, given to git, and the revision as the user wrote it, for messages. */
+export interface Commit {
+  readonly id: string;
+  readonly name: string;
+}
+
 /** The commit a revision names, or a message saying that it names none. */
-export function resolveRevision(root: string, revision: string): GitAnswer<string> {
-  if (revision.startsWith('-') || revision.trim() === '') return { ok: false, message: `'${revision}' is not a revision` };
-  const r = git(root, ['rev-parse', '--verify', '--quiet', `${revision}^{commit}`]);
+export function resolveRevision(root: string, revision: string): GitAnswer<Commit> {
+  const syntax = revisionSyntaxProblem(revision);
+  if (syntax !== null) return { ok: false, message: syntax };
+  const r = git(root, ['rev-parse', '--verify', '--quiet', '--end-of-options', `${revision}^{commit}`]);
   if (r.status === 'missing') return { ok: false, message: noGit };
-  if (r.status !== 0) return { ok: false, message: `unknown revision '${revision}' in the repository at '${root}'` };
-  return { ok: true, value: r.stdout.toString('utf8').trim() };
+  // `^HEAD` passes --verify and prints `^<id>`: only one bare commit id is an answer.
+  const id = r.status === 0 ? r.stdout.toString('utf8').trim() : '';
+  if (!objectId.test(id)) return { ok: false, message: `'${revision}' names no commit in the repository at '${root}'` };
+  return { ok: true, value: { id, name: revision } };
 }
 
 /** A repository path (forward slashes, relative to `root`) for a file-system path. */
@@ -58,22 +83,25 @@ export function repositoryPath(root: string, file: string): string {
   return path.relative(root, path.join(dir, path.basename(abs))).split(path.sep).join('/');
 }
 
-/** The bytes of `file` (a repository path) at `revision`; null when the file does not exist there. */
-export function showFile(root: string, revision: string, file: string): GitAnswer<Buffer | null> {
-  const exists = git(root, ['cat-file', '-e', `${revision}:${file}`]);
+/**
+ * The bytes of `file` (a repository path) at `commit`; null when the file does not exist there. `cat-file blob` gives the stored bytes, with no textconv or other filter of the user's configuration.
+ */
+export function showFile(root: string, commit: Commit, file: string): GitAnswer<Buffer | null> {
+  const object = `${commit.id}:${file}`;
+  const exists = git(root, ['cat-file', '-e', object]);
   if (exists.status === 'missing') return { ok: false, message: noGit };
   if (exists.status !== 0) return { ok: true, value: null };
-  const r = git(root, ['show', `${revision}:${file}`]);
+  const r = git(root, ['cat-file', 'blob', object]);
   if (r.status === 'missing') return { ok: false, message: noGit };
-  if (r.status !== 0) return { ok: false, message: `cannot read '${file}' at '${revision}': ${complaint(r.stderr)}` };
+  if (r.status !== 0) return { ok: false, message: `cannot read '${file}' at '${commit.name}': ${complaint(r.stderr)}` };
   return { ok: true, value: r.stdout };
 }
 
-/** Every file under `folder` (a repository path, '' for the whole tree) at `revision`, as repository paths. */
-export function listFiles(root: string, revision: string, folder: string): GitAnswer<string[]> {
-  const r = git(root, ['ls-tree', '-r', '-z', '--name-only', '--full-tree', revision, '--', ...(folder === '' ? [] : [folder])]);
+/** Every file under `folder` (a repository path, '' for the whole tree) at `commit`, as repository paths. */
+export function listFiles(root: string, commit: Commit, folder: string): GitAnswer<string[]> {
+  const r = git(root, ['ls-tree', '-r', '-z', '--name-only', '--full-tree', commit.id, '--', ...(folder === '' ? [] : [folder])]);
   if (r.status === 'missing') return { ok: false, message: noGit };
-  if (r.status !== 0) return { ok: false, message: `cannot list the files at '${revision}': ${complaint(r.stderr)}` };
+  if (r.status !== 0) return { ok: false, message: `cannot list the files at '${commit.name}': ${complaint(r.stderr)}` };
   return { ok: true, value: r.stdout.toString('utf8').split('\0').filter((s) => s !== '') };
 }
 
@@ -84,9 +112,9 @@ export interface ChangedFile {
   readonly newPath: string | null;
 }
 
-/** The files that differ between two revisions (renames detected), limited to `pathspecs` when given. */
-export function changedFiles(root: string, base: string, head: string, pathspecs: readonly string[]): GitAnswer<ChangedFile[]> {
-  const r = git(root, ['diff', '--name-status', '-z', '-M', base, head, '--', ...pathspecs]);
+/** The files that differ between two commits (renames detected), limited to the paths given, if any. */
+export function changedFiles(root: string, base: Commit, head: Commit, pathspecs: readonly string[]): GitAnswer<ChangedFile[]> {
+  const r = git(root, ['diff', '--no-ext-diff', '--name-status', '-z', '-M', base.id, head.id, '--', ...pathspecs]);
   if (r.status === 'missing') return { ok: false, message: noGit };
   if (r.status !== 0) return { ok: false, message: `git diff failed: ${complaint(r.stderr)}` };
   const tokens = r.stdout.toString('utf8').split('\0');
