@@ -220,7 +220,7 @@ export function generateDocument(seed: number): string {
 const tokenPattern = /\s+|#[^\n]*|[\p{L}_][\p{L}\p{M}\p{Nd}_]*|\d*\.?\d+(?:[eE][+-]?\d+)?|<=|>=|==|!=|&&|\|\||\*\*|=>|[^]/gu;
 
 /** Tokens for insertion: keywords, operators, punctuation, numbers, names, and things the format rejects. */
-const insertable = [
+export const insertable: readonly string[] = [
   'domain', 'const', 'fn', 'kernel', 'expect', 'on', 'and', 'or', 'not', 't', 's', 'x', 'i', 'pi', 'e',
   '+', '-', '*', '/', '^', '(', ')', '[', ']', ',', '=', '<', '<=', '==', '?', ':', '.', '%', '!', ';', '&&', '**',
   '{', '}', '"str"', "'", '\n', '\n  ', '\t', ' ', '#', '0', '1e-300', '1e300', '1e999', '1e', '0x1F', '..', '1.2.3',
