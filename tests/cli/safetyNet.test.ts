@@ -3,7 +3,8 @@
  * one that allocates without end, is stopped in its worker thread and reported as a warning naming it (KW406,
  * KW407), while the other kernels of its file and the other files get their figures. The faults are the test hooks
  * of server/src/safetyNet.ts (kernels named hang_for_test and grow_for_test), honoured only with
- * KERNWRIGHT_TEST_HOOKS=1.
+ * KERNWRIGHT_TEST_HOOKS=1. export and report, which analyse in their own thread, learn the stopped kernels from a
+ * first run in a worker.
  *
  * Reference values: the kernels beside the faulty ones are of rank one, K(t, s) = u(t) u(s), whose one nonzero
  * eigenvalue is ‖u‖² = ∫ u² (elementary; common practice): t·s on [0, 1] gives ∫₀¹ t² dt = 1/3, and exp(t + s) on
@@ -132,6 +133,26 @@ describe('a kernel that never finishes', () => {
     expect(net).toHaveLength(1);
     expect(net[0].level).toBe('warning');
     expect(net[0].message.text).toContain('hang_for_test');
+  });
+});
+
+describe('export and report', () => {
+  it('export names the stopped kernel and exports the one beside it', () => {
+    const stopped = kw(['export', 'hang.kw', '--kernel', 'hang_for_test', '--format', 'json']);
+    expect(stopped.status).toBe(1);
+    expect(stopped.stdout).toBe('');
+    expect(stopped.stderr).toMatch(/^kernwright: nothing exported from 'hang\.kw': The analysis of “hang_for_test” was stopped after/);
+    const good = kw(['export', 'hang.kw', '--kernel', 'product', '--format', 'json']);
+    expect(good.status).toBe(0);
+    expect(JSON.parse(good.stdout)).toMatchObject({ kernel: 'product' });
+  });
+
+  it('report shows the warning for the stopped kernel and draws the other', () => {
+    const r = kw(['report', 'hang.kw', '-o', 'hang.html']);
+    expect(r.status).toBe(0);
+    expect(r.stdout).toMatch(/^wrote hang\.html \(2 kernels,/);
+    const html = fs.readFileSync(path.join(work, 'hang.html'), 'utf8');
+    expect(html).toMatch(/KW406[^<]*“hang_for_test”/);
   });
 });
 

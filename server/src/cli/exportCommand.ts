@@ -6,25 +6,30 @@
  * write one file per array and a manifest.json into the folder -o FOLDER. Writing is all or nothing: the files go to
  * a temporary folder beside the target first and are moved into place only when all of them are written.
  *
- * Exit codes: 0 written; 1 the kernel has nothing to export (errors in its definition, or an operator that is not
- * bounded), nothing written; 2 bad usage, unreadable input, or output that cannot be written.
+ * Exit codes: 0 written; 1 the kernel has nothing to export (errors in its definition, an operator that is not
+ * bounded, or an analysis the safety net stopped), nothing written; 2 bad usage, unreadable input, or output that cannot be written.
  */
 import * as crypto from 'node:crypto';
 import * as fs from 'node:fs';
 import * as path from 'node:path';
 import {
   analyzeText,
+  catalogue,
   exportCsvFiles,
   exportJsonDocument,
   exportKernelData,
   exportNpyFiles,
   type AnalysisOptions,
+  type Diagnostic,
   type ExportFile,
+  type FileAnalysis,
+  type StopReason,
 } from '@kernwright/core';
 import type { ExportOptions } from './args';
 import { ExitCode } from './exitCode';
 import { describeFsError } from './fsErrors';
 import type { CliIo } from './io';
+import { stoppedKernelsOf } from './parallel';
 import { readSource } from './readSource';
 import { toolName, toolVersion } from './version';
 
@@ -67,6 +72,15 @@ export function writeFileAtomically(target: string, content: string): void {
   }
 }
 
+const stoppedCodes = new Set<string>([catalogue['analysis-stopped'].code, catalogue['analysis-out-of-memory'].code]);
+
+/** The diagnostic saying that the safety net stopped kernel `name`, when it did (its figures are not known then). */
+function stoppedDiagnostic(analysis: FileAnalysis, name: string, stopped: ReadonlyMap<string, StopReason>): Diagnostic | undefined {
+  const symbol = analysis.model.kernels.find((k) => k.name === name && k.hash !== null && stopped.has(k.hash));
+  if (!symbol) return undefined;
+  return analysis.diagnostics.find((d) => stoppedCodes.has(d.code) && d.range.start === symbol.nameRange.start);
+}
+
 export async function runExport(options: ExportOptions, io: CliIo): Promise<number> {
   const read = readSource(options.file);
   if (!read.ok) {
@@ -78,7 +92,9 @@ export async function runExport(options: ExportOptions, io: CliIo): Promise<numb
     ...(options.eigenCount !== undefined ? { eigenCount: options.eigenCount } : {}),
     ...(options.gridPoints !== undefined ? { gridPoints: options.gridPoints } : {}),
   };
-  const analysis = analyzeText(read.text, analysisOptions);
+  // The kernels the safety net stops in a worker are reported as stopped here, not analysed in this thread.
+  const stopped = await stoppedKernelsOf(read.text, analysisOptions);
+  const analysis = analyzeText(read.text, analysisOptions, undefined, { stopped });
   const names = analysis.kernels.map((k) => k.name);
   if (names.length === 0) {
     io.err(`'${options.file}' declares no kernel`);
@@ -92,6 +108,11 @@ export async function runExport(options: ExportOptions, io: CliIo): Promise<numb
   if (!names.includes(name)) {
     io.err(`'${options.file}' has no kernel named '${name}' (kernels: ${names.join(', ')})`);
     return ExitCode.usage;
+  }
+  const stoppedNote = stoppedDiagnostic(analysis, name, stopped);
+  if (stoppedNote) {
+    io.err(`nothing exported from '${options.file}': ${stoppedNote.message}`);
+    return ExitCode.findings;
   }
   const exported = exportKernelData(analysis, name, analysisOptions);
   if (!exported.ok) {

@@ -12,7 +12,7 @@ import * as fs from 'node:fs';
 import * as os from 'node:os';
 import * as path from 'node:path';
 import { Worker } from 'node:worker_threads';
-import { defaultAnalysisOptions, type StopReason } from '@kernwright/core';
+import { defaultAnalysisOptions, type AnalysisOptions, type StopReason } from '@kernwright/core';
 import {
   analysisMemoryLimitMb,
   isOutOfMemory,
@@ -172,4 +172,19 @@ export function runInWorkers(
 /** The watchdog's limit for a kernel of this job, from the job's time budget. */
 function limitFor(job: CheckJob): number {
   return kernelTimeLimitMs(job.options.timeBudgetMs ?? defaultAnalysisOptions.timeBudgetMs);
+}
+
+/**
+ * The kernels of one file that the safety net stops, found by analysing the file once in a worker: for commands
+ * that need the analysis in their own thread (export and report use the engine's results beyond the report data),
+ * which then analyse the file with these kernels marked as stopped. The price is a second analysis of the file.
+ * Empty when there is no worker script (running from the TypeScript sources), without numerics, or when the worker
+ * fails for another reason.
+ */
+export async function stoppedKernelsOf(text: string, options: Partial<AnalysisOptions>): Promise<ReadonlyMap<string, StopReason>> {
+  const script = options.numerics === false ? null : workerScript();
+  if (!script) return new Map();
+  const stopped: StoppedByJob = new Map();
+  await runInWorkers([{ index: 0, text, options }], 1, script, () => undefined, stopped);
+  return stopped.get(0)?.snapshot() ?? new Map();
 }

@@ -28,6 +28,7 @@ import {
 import { renderKernelSection } from '../pictures/kernelPictures';
 import { ExitCode } from './exitCode';
 import { writeFileAtomically } from './exportCommand';
+import { stoppedKernelsOf } from './parallel';
 import { describeFsError } from './fsErrors';
 import type { CliIo } from './io';
 import { readSource } from './readSource';
@@ -175,7 +176,10 @@ export async function reportFromAnalysis(options: ReportOptions, analysis: FileA
 
 /** The HTML page for the options and the file's text, or a one-line reason why there is none. */
 export async function buildReport(options: ReportOptions, text: string): Promise<ReportResult> {
-  return reportFromAnalysis(options, analyzeText(text, reportAnalysisOptions(options)));
+  // The kernels the safety net stops in a worker are reported as stopped here, not analysed in this thread.
+  const analysisOptions = reportAnalysisOptions(options);
+  const stopped = await stoppedKernelsOf(text, analysisOptions);
+  return reportFromAnalysis(options, analyzeText(text, analysisOptions, undefined, { stopped }));
 }
 
 /** Runs `kernwright report` with the arguments that follow the word `report`; resolves to the exit code. */
