@@ -78,10 +78,14 @@ export function startServer(connection: Connection, workerScript = path.join(__d
   const worker = new WorkerClient({
     script: workerScript,
     onRestart: (reason, stopped) => {
+      // A stopped kernel is reported on its name (KW406/KW407): the log says why, and no notice interrupts the user.
+      if (stopped) {
+        log(`Kernwright: ${reason}; the analysis worker was restarted and the files it held are analysed again without “${stopped.name}”.`);
+        return;
+      }
       const message = `Kernwright: the analysis worker stopped (${reason}) and was restarted; open files are analysed again.`;
       log(message);
-      // A stopped kernel is reported on its name (KW406/KW407); only a death nothing explains is worth a notice.
-      if (!stopped && !restartNoticeShown) {
+      if (!restartNoticeShown) {
         restartNoticeShown = true;
         void connection.sendNotification(ShowMessageNotification.type, { type: MessageType.Warning, message });
       }

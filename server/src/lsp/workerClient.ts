@@ -194,7 +194,7 @@ export class WorkerClient {
     if (kernel && error !== undefined && isOutOfMemory(error)) {
       const stop: StopReason = { kind: 'memory', limitMb: analysisMemoryLimitMb };
       this.stopped.add(kernel.hash, stop);
-      this.replace(running, `the analysis of kernel “${kernel.name}” ran out of memory (${reason})`, { name: kernel.name, reason: stop });
+      this.replace(running, `the analysis of kernel “${kernel.name}” needed more than the ${analysisMemoryLimitMb} MB memory limit and was stopped`, { name: kernel.name, reason: stop });
       return;
     }
     this.replace(running, reason);
