@@ -38,6 +38,17 @@ function compute(k: KernelSymbol, options: AnalysisOptions, token?: Cancellation
   const domain: [number, number] = [k.domain!.a, k.domain!.b];
   const result = runSpectralEngine(k.name, ir, domain, options, token);
   const notes: ((k: KernelSymbol) => Diagnostic)[] = [];
+  for (const cap of result.caps) {
+    if (cap.kind === 'integer-lines') {
+      const lines = cap.lines < 1e6 ? String(cap.lines) : `about ${cap.lines.toExponential(1)}`;
+      notes.push((sym) => makeDiagnostic('jump-lines-capped', cap.range, { name: sym.name, lines, cap: cap.cap },
+        { figures: { lines: cap.lines, cap: cap.cap } }));
+    } else {
+      notes.push((sym) => makeDiagnostic('loci-capped', sym.nameRange, {
+        name: sym.name, loci: cap.loci, followed: cap.followed, maxResolution: cap.maxResolution,
+      }, { figures: { loci: cap.loci, followed: cap.followed } }));
+    }
+  }
   let spectrum = result.spectrum;
   if (!spectrum) {
     const reason = result.reason ?? 'unknown reason';

@@ -45,13 +45,15 @@ export function buildLadder(plan: MeshPlan, o: LadderOptions): Discretisation[] 
     const p: [number, number][] = [
       [1, 7], [1, 11], [1, 15], [1, 23], [2, 23], [3, 23], [4, 23], [6, 23], [8, 23], [12, 23], [16, 23],
     ];
+    // Many loci make many panels: when degree 7 on them is beyond the resolution cap, lower degrees come first.
+    if (size(make(plan, 1, 0, 7, false)) > o.maxSize) p.unshift([1, 1], [1, 2], [1, 3], [1, 5]);
     for (const [split, degree] of p) steps.push(make(plan, split, 0, degree, false));
   }
   const fits = steps.filter((d) => size(d) <= o.maxSize);
   // Start where the basis can hold the requested eigenvalues comfortably.
   const firstUseful = fits.findIndex((d) => size(d) >= o.minSize);
-  const usable = firstUseful < 0 ? fits.slice(-2) : fits.slice(Math.max(0, firstUseful - 0));
-  return usable.length > 0 ? usable : steps.slice(0, 2);
+  // Empty when not even the coarsest level fits the resolution cap: the caller then follows fewer loci.
+  return firstUseful < 0 ? fits.slice(-2) : fits.slice(firstUseful);
 }
 
 export { size as discretisationSize };

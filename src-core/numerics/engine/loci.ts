@@ -34,7 +34,24 @@ export interface LociResult {
    * test numerically whether it vanishes on the square at all (for comparisons: the difference; else a constant).
    */
   readonly unknown: readonly { kind: LocusKind; range: TextRange; node: IrNode }[];
+  /**
+   * Places where a cap on the number of loci was hit: a floor whose argument crosses more integers inside the square
+   * than `cap` (`lines` of them; the one nearest the middle is kept as a locus, so the checks see the jumps, and the
+   * rest is left to uniform refinement, as for an unknown locus).
+   */
+  readonly capped: readonly LociCap[];
 }
+
+export interface LociCap {
+  readonly kind: 'integer-lines';
+  readonly range: TextRange;
+  /** How many lines there are (a double: may exceed 2^53). */
+  readonly lines: number;
+  readonly cap: number;
+}
+
+/** Most jump lines followed for one floor(...) (each is a breakpoint of the mesh). */
+export const integerLineCap = 64;
 
 interface Affine { ct: number; cs: number; c0: number }
 
@@ -60,6 +77,7 @@ class LociFinder {
   private readonly affineCache = new Map<IrNode, Affine | null>();
   readonly loci: Locus[] = [];
   readonly unknown: { kind: LocusKind; range: TextRange; node: IrNode }[] = [];
+  readonly capped: LociCap[] = [];
 
   constructor(private readonly domain: readonly [number, number]) {}
 
@@ -239,8 +257,12 @@ class LociFinder {
     return l ? [l] : null;
   }
 
-  /** Lines x = k for the integers k that the affine x takes inside the square (at most 64, else unknown). */
-  private integerLines(x: Affine): Line[] | null {
+  /**
+   * Lines x = k for the integers k that the affine x takes inside the square: all of them when there are at most
+   * `integerLineCap`; else the one nearest the middle, with `capped` set to how many there are (the rest are left to
+   * uniform refinement). Null when x is not finite on the square.
+   */
+  private integerLines(x: Affine): { lines: Line[]; capped: number | null } | null {
     const [a, b] = this.domain;
     const corners = [[a, a], [a, b], [b, a], [b, b]].map(([t, s]) => x.ct * t + x.cs * s + x.c0);
     const lo = Math.min(...corners);
@@ -248,19 +270,23 @@ class LociFinder {
     // Every double of magnitude at least 2^52 is an integer, so floor is the identity there and jumps nowhere; and
     // k++ would not move beyond 2^53 (the search for floor(s + 1e17) looped forever).
     if (!Number.isFinite(lo) || !Number.isFinite(hi)) return null;
-    if (Math.min(Math.abs(lo), Math.abs(hi)) >= 2 ** 52 && Math.sign(lo) === Math.sign(hi)) return [];
+    if (Math.min(Math.abs(lo), Math.abs(hi)) >= 2 ** 52 && Math.sign(lo) === Math.sign(hi)) return { lines: [], capped: null };
     const first = Math.floor(lo) + 1;
     const last = Math.ceil(hi) - 1;
-    if (!(last - first + 1 <= 64)) return null;
+    const total = Math.max(0, last - first + 1);
+    const line = (k: number) => normaliseLine({ ct: x.ct, cs: x.cs, c0: x.c0 - k });
+    if (total > integerLineCap) {
+      const middle = Math.min(last, Math.max(first, Math.round((lo + hi) / 2)));
+      const l = line(middle);
+      return { lines: l ? [l] : [], capped: total };
+    }
     const out: Line[] = [];
-    // The trip count is at most 64 whatever the values: an index, not the (possibly unresolvable) integer, counts.
-    const count = Math.max(0, last - first + 1);
-    for (let i = 0; i < count; i++) {
-      const k = first + i;
-      const l = normaliseLine({ ct: x.ct, cs: x.cs, c0: x.c0 - k });
+    // The trip count is at most integerLineCap whatever the values: an index, not the integer itself, counts.
+    for (let i = 0; i < total; i++) {
+      const l = line(first + i);
       if (l) out.push(l);
     }
-    return out;
+    return { lines: out, capped: null };
   }
 
   visit(root: IrNode): void {
@@ -307,7 +333,12 @@ class LociFinder {
             case 'sqrt': case 'log': this.add(this.zeroLines(x), 'singular', n.range, x); break;
             case 'floor': {
               const a = this.affine(x);
-              this.add(a ? this.integerLines(a) : null, 'jump', n.range, x);
+              const found = a ? this.integerLines(a) : null;
+              if (found?.capped) {
+                this.capped.push({ kind: 'integer-lines', range: n.range, lines: found.capped, cap: integerLineCap });
+                this.add(null, 'jump', n.range); // a constant node: the lines surely meet the square
+              }
+              this.add(found ? found.lines : null, 'jump', n.range, x);
               break;
             }
             case 'min': case 'max':
@@ -343,5 +374,5 @@ export function findLoci(fn: IrFunction, domain: readonly [number, number]): Loc
     const scale = Math.max(1, Math.abs(a), Math.abs(b));
     return Math.min(...v) <= 1e-12 * scale && Math.max(...v) >= -1e-12 * scale;
   };
-  return { loci: finder.loci.filter((l) => meets(l.line)), unknown: finder.unknown };
+  return { loci: finder.loci.filter((l) => meets(l.line)), unknown: finder.unknown, capped: finder.capped };
 }

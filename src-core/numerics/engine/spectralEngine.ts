@@ -8,7 +8,7 @@ import { compileKernel, type CompiledKernel } from '../../semantics/evaluator';
 import type { CancellationToken } from '../../util/cancellation';
 import { throwIfCancelled } from '../../util/cancellation';
 import type { AnalysisOptions, EigenEstimate, Estimate, NormEstimate, SpectrumReport } from '../../analysis/types';
-import { findLoci, type Locus, type LociResult } from './loci';
+import { findLoci, type Locus, type LociCap, type LociResult } from './loci';
 import { planMesh } from './mesh';
 import { buildLadder, discretisationSize } from './ladder';
 import { assembleGalerkin } from './assemble';
@@ -39,7 +39,15 @@ export interface SpectralResult {
    * the first three levels' work, and in practice within a small factor (about 1.5) of the budget.
    */
   readonly work: number;
+  /** Caps on loci the analysis hit (each becomes a diagnostic: the figures converge more slowly, errors say how far). */
+  readonly caps: readonly EngineCap[];
 }
+
+/**
+ * A cap hit by the engine: too many jump lines of one floor (from the loci search), or more loci than panels the
+ * resolution cap allows (`loci` found, `followed` of them kept as breakpoints, the others left to uniform refinement).
+ */
+export type EngineCap = LociCap | { readonly kind: 'mesh-loci'; readonly loci: number; readonly followed: number; readonly maxResolution: number };
 
 const now = () => (typeof performance !== 'undefined' ? performance.now() : Date.now());
 
@@ -103,15 +111,16 @@ export function runSpectralEngine(
   const kernel = compiled ?? compileKernel(ir);
   const [a, b] = domain;
   const raw = findLoci(ir, domain);
-  const loci: LociResult = { loci: raw.loci, unknown: confirmUnknownLoci(raw.unknown, domain) };
+  const loci: LociResult = { loci: raw.loci, unknown: confirmUnknownLoci(raw.unknown, domain), capped: raw.capped };
   const singularLoci = loci.loci.filter((l) => l.kind === 'singular');
   const singularities = singularLoci
     .map((l) => estimateSingularity(kernel, l, a, b))
     .filter((s): s is SingularityEstimate => s !== null);
   let spent = 0;
+  const caps: EngineCap[] = [...loci.capped];
   const empty = (reason: string): SpectralResult => ({
     spectrum: null, reason, loci, singularities, finest: null, hermitian: false, defect: NaN, reached: NaN, target: NaN,
-    work: spent,
+    work: spent, caps,
   });
   const fatal = singularities.find((s) => !s.integrable);
   if (fatal) {
@@ -119,14 +128,25 @@ export function runSpectralEngine(
     return empty(`|K| grows like d^(−${fatal.exponent.toFixed(2)}) toward ${where}, which is not integrable, so the operator is not bounded on L²`);
   }
   const target = classTarget(options, singularities);
-  const plan = planMesh(loci.loci, a, b);
-  const oblique: Locus[] = loci.loci.filter((l) => l.line.ct !== 0 && l.line.cs !== 0);
-  const ladder = buildLadder(plan, {
+  const ladderOptions = {
     singular: singularLoci.length > 0,
     unknownLoci: loci.unknown.length > 0,
     maxSize: options.maxResolution,
     minSize: Math.max(16, 2 * options.eigenCount),
-  });
+  };
+  let followed: readonly Locus[] = loci.loci;
+  let ladder = buildLadder(planMesh(followed, a, b), ladderOptions);
+  if (ladder.length === 0) {
+    // More loci than panels the resolution cap allows: the mesh follows the singular ones only and refines
+    // uniformly across the kinks and jumps (as for loci it could not place).
+    followed = singularLoci;
+    ladder = buildLadder(planMesh(followed, a, b), { ...ladderOptions, unknownLoci: true });
+    caps.push({ kind: 'mesh-loci', loci: loci.loci.length, followed: followed.length, maxResolution: options.maxResolution });
+  }
+  if (ladder.length === 0) {
+    return empty(`K is singular along ${singularLoci.length} lines, more than a discretisation within the resolution cap of ${options.maxResolution} can follow`);
+  }
+  const oblique: Locus[] = followed.filter((l) => l.line.ct !== 0 && l.line.cs !== 0);
   const count = options.eigenCount;
   const levels: LevelSolution[] = [];
   let lastWork = 0;
@@ -185,7 +205,7 @@ export function runSpectralEngine(
   };
   return {
     spectrum, reason: null, loci, singularities, finest, hermitian: finest.hermitian, defect: finest.defect,
-    reached, target, work: spent,
+    reached, target, work: spent, caps,
   };
 }
 

@@ -76,3 +76,43 @@ describe('symmetry defect of huge kernels', () => {
     expect(Math.abs(k.hermitian!.defect - 2)).toBeLessThan(1e-6);
   });
 });
+
+describe('caps on loci, with a diagnostic when one is hit', () => {
+  // floor(100·t) on [0, 1]: K(t, s) = f(t)·1 has rank one, and its only nonzero eigenvalue is ∫₀¹ f(t) dt
+  // (common practice for a rank-one kernel f(t)g(s): λ = ∫ f g) = Σ_{k=0}^{99} k/100 = 49.5. floor jumps along 99
+  // lines, more than the 64 followed one by one.
+  it('floor(100·t): KW404 on the floor, and λ₁ = 49.5 within its error', () => {
+    const text = 'domain [0, 1]\nkernel k(t, s) = floor(100*t)\n';
+    const r = analyzeText(text);
+    const cap = r.diagnostics.find((d) => d.code === 'KW404');
+    expect(cap).toBeDefined();
+    expect(text.slice(cap!.range.start, cap!.range.end)).toBe('floor(100*t)');
+    expect(cap!.figures).toMatchObject({ lines: 99, cap: 64 });
+    const l1 = r.kernels[0].spectrum!.eigenvalues[0];
+    expect(Math.abs(l1.re - 49.5)).toBeLessThanOrEqual(l1.error);
+  });
+
+  // Four floors with about 250 distinct axis-parallel jump lines together: more panels than the resolution cap
+  // (384 unknowns) allows even at degree 1, so the mesh follows none of them (KW405) and refines uniformly. The trace
+  // ∫₀¹ K(t, t) dt is a sum of ∫₀¹ floor(c·t) dt = (Σ_{k<⌊c⌋} k/c) + ⌊c⌋(1 − ⌊c⌋/c), computed here by that sum.
+  it('about 250 jump lines: KW405, no level beyond the resolution cap, and the trace right within its error', () => {
+    const cs = [64.5, 63.7, 62.9, 61.1];
+    const text = `domain [0, 1]\nkernel k(t, s) = floor(${cs[0]}*t) + floor(${cs[1]}*s) + floor(${cs[2]}*t) + floor(${cs[3]}*s)\n`;
+    const r = analyzeText(text);
+    const cap = r.diagnostics.find((d) => d.code === 'KW405');
+    expect(cap).toBeDefined();
+    expect(cap!.figures).toMatchObject({ followed: 0 });
+    const spectrum = r.kernels[0].spectrum!;
+    const n = Number(/N = (\d+)/.exec(spectrum.method)?.[1]);
+    expect(n).toBeLessThanOrEqual(384);
+    const floorIntegral = (c: number) => {
+      const m = Math.floor(c);
+      let sum = 0;
+      for (let k = 0; k < m; k++) sum += k / c;
+      return sum + m * (1 - m / c);
+    };
+    const trace = cs.reduce((acc, c) => acc + floorIntegral(c), 0);
+    expect(spectrum.trace).not.toBeNull();
+    expect(Math.abs(spectrum.trace!.value - trace)).toBeLessThanOrEqual(spectrum.trace!.error);
+  });
+});
