@@ -5,6 +5,7 @@
  * so the net is for faults that slip through those limits; when it fires, the front end restarts the worker and
  * runs the file again with that kernel marked as stopped (the core then reports KW406 or KW407 for it).
  */
+import * as os from 'node:os';
 import type { StopReason } from '@kernwright/core';
 
 /**
@@ -21,13 +22,20 @@ export const workerResourceLimits = {
 
 /**
  * How long one kernel may take (wall clock, from its start) before the watchdog stops it: well beyond the engine's
- * own wall-clock net (4·budget + 1 s), so that only a kernel that is really stuck is stopped, even on a loaded
- * machine. KERNWRIGHT_KERNEL_TIME_LIMIT_MS overrides it (tests of the net use a short limit).
+ * own wall-clock net (4·budget + 1 s), so that only a kernel that is really stuck is stopped, and stretched by the
+ * machine's load (runnable threads per core, up to 8×), since a kernel on an overloaded machine gets only a share of
+ * a core. KERNWRIGHT_KERNEL_TIME_LIMIT_MS overrides it exactly (tests of the net use a short limit).
  */
-export function kernelTimeLimitMs(budgetMs: number, env: NodeJS.ProcessEnv = process.env): number {
+export function kernelTimeLimitMs(
+  budgetMs: number,
+  env: NodeJS.ProcessEnv = process.env,
+  load: number = os.loadavg()[0],
+  cores: number = typeof os.availableParallelism === 'function' ? os.availableParallelism() : os.cpus().length,
+): number {
   const override = Number(env.KERNWRIGHT_KERNEL_TIME_LIMIT_MS);
   if (Number.isFinite(override) && override > 0) return override;
-  return 5000 + 4 * (4 * budgetMs + 1000);
+  const stretch = Math.max(1, Math.min(8, load / Math.max(1, cores)));
+  return (5000 + 4 * (4 * budgetMs + 1000)) * stretch;
 }
 
 /** Whether a worker's 'error' event says it ran out of its heap limit. */
