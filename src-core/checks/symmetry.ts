@@ -78,8 +78,10 @@ function sampledDefect(ctx: CheckContext, nt: number, ns: number): { defect: num
       const mr = m.re[q];
       const mi = m.im ? -m.im[q] : 0; // conj K(s, t)
       if (!Number.isFinite(kr) || !Number.isFinite(ki) || !Number.isFinite(mr) || !Number.isFinite(mi)) continue;
-      const w = gt.weights[i] * gs.weights[j];
-      const d2 = ((kr - mr) / unit) ** 2 + ((ki - mi) / unit) ** 2;
+      // The weights are taken relative to the square's area too (the ratio does not change): on [-1e300, 1e300]
+      // their product overflows.
+      const w = (gt.weights[i] / (b - a)) * (gs.weights[j] / (b - a));
+      const d2 = (kr / unit - mr / unit) ** 2 + (ki / unit - mi / unit) ** 2;
       num += w * d2;
       den += w * 0.5 * ((kr / unit) ** 2 + (ki / unit) ** 2 + (mr / unit) ** 2 + (mi / unit) ** 2);
       if (d2 > worst) { worst = d2; worstAt = { i, j }; }

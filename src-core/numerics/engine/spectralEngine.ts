@@ -65,6 +65,11 @@ export function safetyNetMs(budgetMs: number): number {
   return 4 * budgetMs + 1000;
 }
 
+function entriesFinite(xs: Float64Array): boolean {
+  for (let k = 0; k < xs.length; k++) if (!Number.isFinite(xs[k])) return false;
+  return true;
+}
+
 export function levelWork(sol: LevelSolution): number {
   const m = sol.matrix;
   const complex = m.im !== null;
@@ -167,6 +172,12 @@ export function runSpectralEngine(
     const matrix = assembleGalerkin(kernel, d, oblique, token);
     if (matrix.nonFinite > 0) {
       if (levels.length === 0) return empty('K is not finite at points inside the square where the analysis must evaluate it');
+      break;
+    }
+    if (!entriesFinite(matrix.re) || (matrix.im && !entriesFinite(matrix.im))) {
+      // Finite kernel values whose weighted integrals overflow (a domain such as [-1e300, 1e300]): the operator's
+      // size is beyond the double range, as below.
+      if (levels.length === 0) return empty('the Galerkin matrix of K is too large for double precision (its entries overflow)');
       break;
     }
     const sol = solveLevel(matrix, Math.max(count, 1) + 4);

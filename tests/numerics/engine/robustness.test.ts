@@ -116,3 +116,22 @@ describe('caps on loci, with a diagnostic when one is hit', () => {
     expect(Math.abs(spectrum.trace!.value - trace)).toBeLessThanOrEqual(spectrum.trace!.error);
   });
 });
+
+describe('a domain so wide that the Galerkin entries overflow', () => {
+  // Found by the fuzz run (fuzz/found/crash-cli-1102): the solvers met infinite entries and threw.
+  it('(t <= 1e-12 ? .25 : i) on [-1e300, 1e300]: no spectrum, said why, no internal error', () => {
+    const r = analyzeText('domain [-1e300, 1e300]\nkernel k(t, s) = (t <= 1e-12 ? .25 : i)\n');
+    expect(r.kernels[0].spectrum).toBeNull();
+    expect(r.diagnostics.find((d) => d.code === 'KW402')?.message).toMatch(/too large for double precision/);
+  });
+
+  // K(t, s) = s on [−L, L]: ‖K − K*‖² = ∫∫ (s − t)² = ∫∫ (s² + t²) = 2 ∫∫ s² (the cross term vanishes by
+  // symmetry), so the relative defect is √2 whatever L (derived here, common practice). Found by the fuzz run
+  // (crash-cli-1671): the quadrature weights' product overflowed and the defect printed as NaN.
+  it('s on [-1e300, 1e300] gets the Hermitian defect √2', () => {
+    const r = analyzeText('domain [-1e300, 1e300]\nkernel k(t, s) = s\n');
+    const h = r.kernels[0].hermitian!;
+    expect(h.holds).toBe(false);
+    expect(Math.abs(h.defect - Math.SQRT2)).toBeLessThanOrEqual(Math.max(h.defectError, 1e-12));
+  });
+});
