@@ -11,8 +11,15 @@
  * of the report: in text and markdown a path with a control character (or one that starts with '"') is printed
  * quoted, with C-style escapes (`"a\nb.kw"`), and messages on standard error have their control characters
  * escaped. JSON keeps every path as it is (JSON escapes it).
+ *
+ * The numerical analyses run under the safety net (parallel.ts, `NetAnalyses`): a first attempt over every pair
+ * collects the versions the core wants analysed numerically (parse and names run in this thread, for the kernels'
+ * definitions the comparison reads), those analyses run in workers, and a second attempt compares with their
+ * results. A kernel the net stops has a KW406 or KW407 in its version's analysis, and the comparison says that its
+ * figures are not known.
  */
 import {
+  analyzeText,
   compareFileVersions,
   compareJsonReport,
   compareVerdict,
@@ -20,6 +27,8 @@ import {
   formatComparisonMarkdown,
   formatComparisonText,
   type AnalysisOptions,
+  type CompareAnalyzer,
+  type FileAnalysis,
   type FileComparison,
 } from '@kernwright/core';
 import type { CompareCommandOptions } from './args';
@@ -27,6 +36,7 @@ import { colourCompareLine, colourText } from './colour';
 import { gatherPairs } from './compareSources';
 import { ExitCode } from './exitCode';
 import type { CliIo } from './io';
+import { NetAnalyses } from './parallel';
 import { createProgress } from './progress';
 import { toolName, toolVersion } from './version';
 
@@ -58,6 +68,29 @@ function errorMessage(error: unknown): string {
   return error instanceof Error ? error.message : String(error);
 }
 
+/**
+ * The core's analyser for compare, under the net: parse and names in this thread (the comparison needs the kernels'
+ * resolved definitions, which do not cross a thread), the numerics from `net`. A numerical analysis that has not run
+ * yet is answered for this attempt by the one without numerics, and remembered for `net.run`.
+ */
+function netAnalyser(net: NetAnalyses): CompareAnalyzer {
+  const plain = new Map<string, FileAnalysis>();
+  const withoutNumerics = (text: string, options: Partial<AnalysisOptions>): FileAnalysis => {
+    const key = `${JSON.stringify(options)}\0${text}`;
+    let analysis = plain.get(key);
+    if (!analysis) plain.set(key, (analysis = analyzeText(text, { ...options, numerics: false })));
+    return analysis;
+  };
+  return (text, options) => {
+    const base = withoutNumerics(text, { ...options, numerics: false });
+    if (options.numerics === false) return base;
+    const result = net.peek(text, options);
+    if (!result) return base;
+    if (!result.ok) throw new Error(result.message);
+    return { ...base, diagnostics: result.diagnostics, kernels: result.kernels };
+  };
+}
+
 export async function runCompare(options: CompareCommandOptions, io: CliIo): Promise<number> {
   const { pairs, problems } = gatherPairs(options.sources);
   if (problems.length > 0) {
@@ -68,24 +101,33 @@ export async function runCompare(options: CompareCommandOptions, io: CliIo): Pro
     ...(options.timeBudgetMs !== undefined ? { timeBudgetMs: options.timeBudgetMs } : {}),
     ...(options.eigenCount !== undefined ? { eigenCount: options.eigenCount } : {}),
   };
-  const progress = createProgress(io, pairs.length, 'comparing');
-  const files: FileComparison[] = [];
-  const refusals: string[] = [];
+  const net = new NetAnalyses();
+  const analyse = netAnalyser(net);
   const shown = options.format === 'json' ? (p: string) => p : shownPath;
   const shownOrNull = (p: string | null) => (p === null ? null : shown(p));
-  for (const pair of pairs) {
-    try {
-      const result = compareFileVersions(pair.old, pair.new, { analysis });
-      if (result.ok) {
-        const f = result.file;
-        files.push({ ...f, path: shown(pair.path), oldPath: shownOrNull(f.oldPath), newPath: shownOrNull(f.newPath) });
-      } else refusals.push(result.message);
-    } catch (error) {
-      refusals.push(`internal error while comparing '${pair.path}': ${errorMessage(error)} (please report this)`);
+  let files: FileComparison[] = [];
+  let refusals: string[] = [];
+  // Attempts end: the texts and options asked for are the same in every attempt, so the second finds them all.
+  for (;;) {
+    files = [];
+    refusals = [];
+    for (const pair of pairs) {
+      try {
+        const result = compareFileVersions(pair.old, pair.new, { analysis }, analyse);
+        if (result.ok) {
+          const f = result.file;
+          files.push({ ...f, path: shown(pair.path), oldPath: shownOrNull(f.oldPath), newPath: shownOrNull(f.newPath) });
+        } else refusals.push(result.message);
+      } catch (error) {
+        refusals.push(`internal error while comparing '${pair.path}': ${errorMessage(error)} (please report this)`);
+      }
     }
-    progress.tick(shownPath(pair.path));
+    if (!net.pending) break;
+    const pathOf = new Map(pairs.flatMap((p) => [p.old, p.new]).filter((v) => v !== null).map((v) => [v.text, v.path]));
+    const progress = createProgress(io, net.pendingCount, 'comparing');
+    await net.run(undefined, (text) => progress.tick(shownPath(pathOf.get(text) ?? '')));
+    progress.clear();
   }
-  progress.clear();
   if (refusals.length > 0) {
     refusals.map(escapeMessage).forEach(io.err);
     return ExitCode.usage;

@@ -24,6 +24,7 @@ import {
 import {
   checkWorkerRole,
   isKernelStarted,
+  runCheckJob,
   type CheckJob,
   type CheckJobResult,
   type CheckWorkerMessage,
@@ -187,4 +188,93 @@ export async function stoppedKernelsOf(text: string, options: Partial<AnalysisOp
   const stopped: StoppedByJob = new Map();
   await runInWorkers([{ index: 0, text, options }], 1, script, () => undefined, stopped);
   return stopped.get(0)?.snapshot() ?? new Map();
+}
+
+/** Thrown by `NetAnalyses.need` for an analysis that has not run yet; the caller runs them and tries again. */
+export class PendingAnalysis extends Error {
+  constructor() {
+    super('an analysis is still to run under the safety net');
+  }
+}
+
+/**
+ * Analyses under the safety net for commands whose core loop asks for analyses one at a time and synchronously
+ * (`compare` asks for each version's analysis, `fix` re-analyses after every pass). The command runs its loop in
+ * attempts: an attempt asks here for each analysis it needs (by text and options); one that has not run yet is
+ * remembered, and the attempt either goes on with a stand-in (`peek`, to find every analysis it will need in one
+ * attempt) or stops (`need` throws PendingAnalysis). `run` then analyses everything remembered at once, in workers
+ * (several when that pays), and the command tries again. Each attempt gets further, since the core is
+ * deterministic: an analysis asked for once is answered from then on.
+ *
+ * Kernels the net stops are remembered across texts by definition hash, so that a kernel that hangs is stopped once,
+ * not again in every version of its file that a fix pass produces. Without the worker script (running from the
+ * TypeScript sources) the analyses run in this thread, without a watchdog.
+ */
+export class NetAnalyses {
+  private readonly results = new Map<string, CheckJobResult>();
+  private readonly missing = new Map<string, { readonly text: string; readonly options: Partial<AnalysisOptions> }>();
+  private readonly stopped = new StoppedKernels();
+
+  private static key(text: string, options: Partial<AnalysisOptions>): string {
+    return `${JSON.stringify(options)}\0${text}`;
+  }
+
+  /** The analysis of `text` with `options`, or null when it has not run yet (it is remembered to run). */
+  peek(text: string, options: Partial<AnalysisOptions>): CheckJobResult | null {
+    const key = NetAnalyses.key(text, options);
+    const result = this.results.get(key);
+    if (result) return result;
+    this.missing.set(key, { text, options });
+    return null;
+  }
+
+  /** The analysis of `text` with `options`; throws PendingAnalysis when it has not run yet. */
+  need(text: string, options: Partial<AnalysisOptions>): CheckJobResult {
+    const result = this.peek(text, options);
+    if (!result) throw new PendingAnalysis();
+    return result;
+  }
+
+  /** Whether an attempt asked for an analysis that has not run yet. */
+  get pending(): boolean {
+    return this.missing.size > 0;
+  }
+
+  /** How many analyses attempts asked for that have not run yet. */
+  get pendingCount(): number {
+    return this.missing.size;
+  }
+
+  /**
+   * Runs every analysis asked for and not yet run: in workers under the net, or here without the script. `onDone`
+   * is called with each text as its analysis ends (for a progress line).
+   */
+  async run(requestedThreads?: number, onDone?: (text: string) => void): Promise<void> {
+    const wanted = [...this.missing];
+    this.missing.clear();
+    if (wanted.length === 0) return;
+    const earlier = this.stopped.size > 0 ? this.stopped.snapshot() : undefined;
+    const jobs: CheckJob[] = wanted.map(([, w], index) => ({ index, text: w.text, options: w.options, ...(earlier ? { stopped: earlier } : {}) }));
+    const stoppedByJob: StoppedByJob = new Map();
+    if (earlier) {
+      for (const job of jobs) {
+        const kernels = new StoppedKernels();
+        for (const [hash, reason] of earlier) kernels.add(hash, reason);
+        stoppedByJob.set(job.index, kernels);
+      }
+    }
+    const done = (r: CheckJobResult): void => {
+      this.results.set(wanted[r.index][0], r);
+      onDone?.(wanted[r.index][1].text);
+    };
+    const script = workerScript();
+    const leftOver = script
+      ? await runInWorkers(jobs, chooseThreads(jobs.length, requestedThreads, true), script, done, stoppedByJob)
+      : jobs.map((j) => j.index);
+    for (const kernels of stoppedByJob.values()) for (const [hash, reason] of kernels.snapshot()) this.stopped.add(hash, reason);
+    for (const index of leftOver) {
+      const kernels = stoppedByJob.get(index);
+      done(runCheckJob({ ...jobs[index], ...(kernels ? { stopped: kernels.snapshot() } : {}) }));
+    }
+  }
 }
