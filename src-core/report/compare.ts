@@ -10,8 +10,14 @@
  *
  * A version whose text does not parse cleanly still takes part (its kernels with errors are reported as not
  * comparable), but when neither version parses cleanly there is nothing to compare and the file is refused.
+ *
+ * The analyser is a parameter (the in-thread `analyzeText` by default), so that a front end can run the numerics
+ * under its safety net. A kernel that the net stopped in either version (KW406, KW407 in that version's analysis)
+ * has no figures there: the comparison says so and compares no figure of it, rather than report its figures as
+ * vanished or appeared.
  */
 import { analyzeText } from '../analysis/analyze';
+import { catalogue } from '../diagnostics/catalogue';
 import type { AnalysisOptions, FileAnalysis, KernelReport } from '../analysis/types';
 import type { Diagnostic } from '../diagnostics/types';
 import type { KernelSymbol } from '../semantics/model';
@@ -76,6 +82,24 @@ function versionsOf(v: ReadVersion): KernelVersion[] {
   }));
 }
 
+const stoppedCodes = new Set<string>([catalogue['analysis-stopped'].code, catalogue['analysis-out-of-memory'].code]);
+
+/** A note saying that the net stopped this version of the kernel, or null when it did not. */
+function stoppedNote(side: 'old' | 'new', r: ReadVersion | null, v: KernelVersion): string | null {
+  const d = r?.analysis.diagnostics.find((x) => stoppedCodes.has(x.code) && x.range.start === v.report.nameRange.start);
+  return d ? `the ${side} version was not analysed to the end (${d.code}): ${d.message.replace(/\s*[\r\n]+\s*/g, ' ')}` : null;
+}
+
+/**
+ * A comparison of two versions of which at least one was stopped: its figures are not known, so none is compared
+ * (the change of K on the grid still is); the same definition on both sides stays unchanged or renamed.
+ */
+function withStops(k: KernelComparison, stops: readonly string[]): KernelComparison {
+  if (stops.length === 0 || k.status === 'renamed' || (k.status === 'unchanged' && !k.rewritten)) return k;
+  const notes = [...stops, ...(k.status === 'not-comparable' ? k.notes : [])];
+  return { ...k, status: 'not-comparable', rewritten: false, flips: [], figures: [], rank: [], notes };
+}
+
 const identity = (v: KernelVersion) => ({ name: v.report.name, hash: v.report.hash });
 
 function read(text: string, options: Partial<AnalysisOptions>, analyze: CompareAnalyzer): ReadVersion {
@@ -121,14 +145,20 @@ export function compareFileVersions(
     newR = read(newR.text, full, analyze);
     pairs = matchKernels(versionsOf(oldR), versionsOf(newR), identity);
   }
+  const stops = (oldK: KernelVersion | null, newK: KernelVersion | null): string[] =>
+    [oldK && stoppedNote('old', oldR, oldK), newK && stoppedNote('new', newR, newK)].filter((n): n is string => !!n);
   const kernels = pairs.map((p): KernelComparison => {
     switch (p.kind) {
-      case 'added':
-        return kernelOnlyIn('added', p.new);
-      case 'removed':
-        return kernelOnlyIn('removed', p.old);
+      case 'added': {
+        const k = kernelOnlyIn('added', p.new);
+        return { ...k, notes: [...k.notes, ...stops(null, p.new)] };
+      }
+      case 'removed': {
+        const k = kernelOnlyIn('removed', p.old);
+        return { ...k, notes: [...k.notes, ...stops(p.old, null)] };
+      }
       default:
-        return diffKernel(p.old, p.new, { gridPoints: opts.gridPoints });
+        return withStops(diffKernel(p.old, p.new, { gridPoints: opts.gridPoints }), stops(p.old, p.new));
     }
   });
   return {
