@@ -8,18 +8,25 @@
  * the same folder, then a rename), keeps its line endings, byte-order mark and permissions, and is not written when
  * it changed on disk while it was being fixed.
  *
+ * The analyses run under the safety net (parallel.ts, `NetAnalyses`): the fix loop of every file is run in attempts,
+ * each stopping at the first analysis that has not run yet; those analyses then run together in workers, and the
+ * loops start again, getting further each time (the passes already made are answered from the analyses done). A
+ * kernel the net stops gets its KW406 or KW407, which has no fix, and is not run again in later passes; the other
+ * fixes of its file are applied as usual.
+ *
  * Exit codes: 0 fixed (or nothing to fix); 1 with --dry-run when a file would change (the diff is printed);
  * 2 bad usage, unreadable input, a file that cannot be fixed, or a file that cannot be written.
  */
 import * as crypto from 'node:crypto';
 import * as fs from 'node:fs';
 import * as path from 'node:path';
-import { analyzeText, fixText, unifiedDiff, type AnalysisOptions, type AppliedFix } from '@kernwright/core';
+import { fixText, unifiedDiff, type AnalysisOptions, type AppliedFix, type FixOutcome } from '@kernwright/core';
 import type { FixOptions } from './args';
 import { discoverFiles } from './discover';
 import { ExitCode } from './exitCode';
 import { describeFsError } from './fsErrors';
 import type { CliIo } from './io';
+import { NetAnalyses, PendingAnalysis } from './parallel';
 import { decodeSource, maxSourceBytes } from './readSource';
 
 interface Planned {
@@ -85,22 +92,56 @@ export async function runFix(options: FixOptions, io: CliIo): Promise<number> {
   const discovery = discoverFiles(options.paths);
   const problems = [...discovery.problems];
   const analysis: Partial<AnalysisOptions> = options.timeBudgetMs !== undefined ? { timeBudgetMs: options.timeBudgetMs } : {};
-  const analyze = (text: string) => analyzeText(text, analysis).diagnostics;
-  const plans: Planned[] = [];
+  const net = new NetAnalyses();
+  const analyze = (text: string) => {
+    const result = net.need(text, analysis);
+    if (!result.ok) throw new Error(result.message);
+    return result.diagnostics;
+  };
+  interface Source {
+    readonly file: string;
+    readonly bytes: Buffer;
+    readonly text: string;
+  }
+  // One slot per file, in file order: a problem, or the file read and (once its loop has finished) its plan.
+  const slots: (string | { source: Source; outcome?: FixOutcome | string })[] = [];
   for (const file of discovery.files) {
     const bytes = readBytes(file);
-    if (typeof bytes === 'string') { problems.push(bytes); continue; }
+    if (typeof bytes === 'string') { slots.push(bytes); continue; }
     const decoded = decodeSource(file, bytes);
-    if (!decoded.ok) { problems.push(decoded.message); continue; }
-    let outcome;
-    try {
-      outcome = fixText(decoded.text, analyze, { only: options.only });
-    } catch (error) {
-      problems.push(`internal error while fixing '${file}': ${error instanceof Error ? error.message : String(error)} (please report this)`);
+    if (!decoded.ok) { slots.push(decoded.message); continue; }
+    slots.push({ source: { file, bytes, text: decoded.text } });
+  }
+  // Attempts end: each one gets every unfinished loop at least one analysis further, and a loop makes at most
+  // `maxRounds` passes.
+  for (;;) {
+    for (const slot of slots) {
+      if (typeof slot === 'string' || slot.outcome !== undefined) continue;
+      try {
+        slot.outcome = fixText(slot.source.text, analyze, { only: options.only });
+      } catch (error) {
+        if (error instanceof PendingAnalysis) continue;
+        slot.outcome = `internal error while fixing '${slot.source.file}': ${error instanceof Error ? error.message : String(error)} (please report this)`;
+      }
+    }
+    if (!net.pending) break;
+    await net.run();
+  }
+  const plans: Planned[] = [];
+  for (const slot of slots) {
+    if (typeof slot === 'string') { problems.push(slot); continue; }
+    const { source, outcome } = slot;
+    if (outcome === undefined) {
+      // Not reached: the attempts end only when every loop has finished.
+      problems.push(`internal error while fixing '${source.file}': its analyses did not finish (please report this)`);
       continue;
     }
-    if (!outcome.ok) { problems.push(`not fixing '${file}': ${outcome.reason}`); continue; }
-    plans.push({ file, bytes, bom: hasBom(bytes), before: decoded.text, after: outcome.text, applied: outcome.applied, stopped: outcome.stopped });
+    if (typeof outcome === 'string') { problems.push(outcome); continue; }
+    if (!outcome.ok) { problems.push(`not fixing '${source.file}': ${outcome.reason}`); continue; }
+    plans.push({
+      file: source.file, bytes: source.bytes, bom: hasBom(source.bytes), before: source.text,
+      after: outcome.text, applied: outcome.applied, stopped: outcome.stopped,
+    });
   }
   if (problems.length > 0) {
     problems.forEach(io.err);
