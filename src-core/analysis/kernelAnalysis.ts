@@ -18,15 +18,44 @@ export interface KernelNumerics {
 }
 
 const cacheLimit = 256;
-const cache = new Map<string, { result: SpectralResult; spectrum: SpectrumReport | null; notes: ((k: KernelSymbol) => Diagnostic)[] }>();
+/** Memory the cached results may hold together (their matrices and vectors), in bytes: a long session stays bounded. */
+const cacheByteLimit = 160 * 2 ** 20;
+interface CacheEntry {
+  readonly result: SpectralResult;
+  readonly spectrum: SpectrumReport | null;
+  readonly notes: ((k: KernelSymbol) => Diagnostic)[];
+  readonly bytes: number;
+}
+const cache = new Map<string, CacheEntry>();
+let cacheBytes = 0;
 
 export function clearSpectralCache(): void {
   cache.clear();
+  cacheBytes = 0;
+}
+
+/** The typed arrays an entry keeps alive (the finest level's matrix and vectors), plus a small allowance for the rest. */
+function entryBytes(result: SpectralResult): number {
+  const f = result.finest;
+  if (!f) return 4096;
+  let bytes = 4096 + f.matrix.re.byteLength + (f.matrix.im?.byteLength ?? 0) + f.allRe.byteLength + f.allIm.byteLength;
+  for (const p of f.pairs) bytes += p.vecRe.byteLength + (p.vecIm?.byteLength ?? 0);
+  return bytes;
+}
+
+function evictOldest(): void {
+  while (cache.size > 1 && (cache.size > cacheLimit || cacheBytes > cacheByteLimit)) {
+    const oldest = cache.keys().next().value as string;
+    cacheBytes -= cache.get(oldest)!.bytes;
+    cache.delete(oldest);
+  }
 }
 
 /** Drops the cached results of the kernels with these definition hashes (whatever the options). */
 export function forgetSpectra(hashes: ReadonlySet<string>): void {
   forgetHashes(cache, hashes);
+  cacheBytes = 0;
+  for (const e of cache.values()) cacheBytes += e.bytes;
 }
 
 function optionsKey(o: AnalysisOptions): string {
@@ -77,9 +106,11 @@ export function analyzeKernelNumerics(k: KernelSymbol, options: AnalysisOptions,
   const key = `${k.hash}|${optionsKey(options)}`;
   let entry = cache.get(key);
   if (!entry) {
-    entry = compute(k, options, token);
+    const computed = compute(k, options, token);
+    entry = { ...computed, bytes: entryBytes(computed.result) };
     cache.set(key, entry);
-    if (cache.size > cacheLimit) cache.delete(cache.keys().next().value as string);
+    cacheBytes += entry.bytes;
+    evictOldest();
   } else {
     cache.delete(key);
     cache.set(key, entry); // most recently used last

@@ -114,7 +114,16 @@ export function pairRule(
   if (!unit) {
     unit = unitRule(crossingUnit, touchingUnit, options);
     unitRules.set(key, unit);
-    if (unitRules.size > 4096) unitRules.delete(unitRules.keys().next().value as string);
+    unitRuleBytes += ruleBytes(unit);
+    // Bounded in memory, oldest first out: a long editing session meets ever new configurations.
+    while (unitRules.size > 1 && (unitRules.size > 4096 || unitRuleBytes > unitRuleByteLimit)) {
+      const oldest = unitRules.keys().next().value as string;
+      unitRuleBytes -= ruleBytes(unitRules.get(oldest)!);
+      unitRules.delete(oldest);
+    }
+  } else {
+    unitRules.delete(key);
+    unitRules.set(key, unit); // most recently used last
   }
   return { unit, t0, s0, ht, hs };
 }
@@ -159,6 +168,13 @@ function rowAxis(x: Float64Array, y: Float64Array, start: number, rows: number, 
 }
 
 const unitRules = new Map<string, UnitPairRule>();
+let unitRuleBytes = 0;
+/** Memory the cached unit-square rules may hold together (their arrays), in bytes. */
+const unitRuleByteLimit = 48 * 2 ** 20;
+
+function ruleBytes(r: UnitPairRule): number {
+  return r.x.byteLength + r.y.byteLength + r.w.byteLength + r.nearSingular.byteLength + r.blocks.byteLength;
+}
 
 function unitRule(crossing: readonly { line: Line; kind: Locus['kind'] }[], touching: readonly Line[], options: PairRuleOptions): UnitPairRule {
   let pieces: Vec2[][] = [[[0, 0], [1, 0], [1, 1], [0, 1]]];

@@ -33,6 +33,8 @@ export function gaussJacobi(n: number, alpha: number, beta: number): Rule1D {
   if (!rule) {
     rule = computeGaussJacobi(n, alpha, beta);
     cache.set(key, rule);
+    // Exponents come from kernels, so a long session meets ever new ones: keep the most recent 256 rules.
+    if (cache.size > 256) cache.delete(cache.keys().next().value as string);
   }
   return { nodes: rule.nodes.slice(), weights: rule.weights.slice() };
 }
