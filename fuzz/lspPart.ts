@@ -68,6 +68,11 @@ interface OpenDoc {
   readonly texts: Map<number, string>;
   /** The last few things done to it, for the finding's detail. */
   readonly history: string[];
+  /**
+   * Reopened, and the server's empty publication for the close not yet seen: publications before it belong to the
+   * text before the close (the server sent them before it read the close), whatever version they name.
+   */
+  closing?: boolean;
 }
 
 const features: readonly { method: string; params: (d: OpenDoc, p: Position, r: LspRange) => unknown }[] = [
@@ -165,7 +170,11 @@ export async function runLspPart(o: LspPartOptions): Promise<LspCounts> {
       for (const p of server.published.get(d.uri) ?? []) {
         if ((p as { checked?: boolean }).checked) continue;
         (p as { checked?: boolean }).checked = true;
-        if (p.version === undefined) continue; // the empty publication after a close
+        if (p.version === undefined) { // the empty publication after a close
+          d.closing = false;
+          continue;
+        }
+        if (d.closing) continue;
         const text = d.texts.get(p.version);
         if (text === undefined) continue;
         const lengths = lineLengths(text);
@@ -319,6 +328,7 @@ export async function runLspPart(o: LspPartOptions): Promise<LspCounts> {
       d.doc = TextDocument.create(d.uri, 'kernwright', 1, text);
       d.texts.clear();
       server.published.delete(d.uri);
+      d.closing = true;
       d.history.push(`closed and reopened (document ${d.seed})`);
       open(d);
     } else {
