@@ -1,25 +1,23 @@
 /**
  * Boundedness: is T bounded on L²[a, b], and is it Hilbert–Schmidt (∫∫|K|² < ∞, hence compact)?
  *
- * What it reads: the engine's growth estimates |K| ~ d^(−α) (or log 1/d) toward each singular line of the
- * expression (singularity.ts), and, for singular curves that are not straight lines, its own estimate at a few
- * points of the curve (same log–log fit, along the curve's normal). The classes follow standard facts (common
- * practice; R. Kress, Linear Integral Equations, 3rd ed. 2014, §2.3; P. R. Halmos & V. S. Sunder, Bounded Integral
- * Operators on L² Spaces, 1978, §5):
- *  - along a line (or a smooth curve): α < 1/2 or a logarithm → Hilbert–Schmidt; 1/2 ≤ α < 1 → bounded by
- *    Schur's test but not Hilbert–Schmidt; α ≥ 1 → not integrable, unbounded;
- *  - at a corner point of the square: α < 1 → Hilbert–Schmidt; α = 1 (within the fit's 0.02) → bounded, not
- *    Hilbert–Schmidt (Hilbert's inequality for 1/(t + s)); α > 1 → unbounded: with f_ε = ε^(−1/2) on [a, a + ε],
- *    ⟨|K| f_ε, f_ε⟩ ~ ε^(1−α) grows without bound (a kernel of one sign near the corner);
- *  - K infinite or undefined at points where the engine must evaluate it, away from known singular lines →
- *    unbounded.
+ * What it reads: the engine's growth estimates |K| ~ d^(−α) (or log 1/d) toward each singular locus of the
+ * expression, with the verdicts singularity.ts draws from them by the geometry of the locus (an oblique line: bounded
+ * for α < 1 by Schur's test, Hilbert–Schmidt for α < 1/2; a line t = c or s = c: both iff α < 1/2; a point: bounded
+ * for α ≤ 1, Hilbert–Schmidt for α < 1), with the exponent exact where the expression states it and with its error
+ * where it is measured (undecided when the threshold lies within it); and, for singular curves that are not straight
+ * lines, its own estimate at a few points of the curve (same log–log fit along the curve's normal, read like an
+ * oblique line; the exponent of 1/g or g^p, g analytic, as written when the measurement agrees). Standard facts
+ * (common practice; R. Kress, Linear Integral Equations, 3rd ed. 2014, §2.3; P. R. Halmos & V. S. Sunder, Bounded
+ * Integral Operators on L² Spaces, 1978, §5). K infinite or undefined at points where the engine must evaluate it,
+ * away from known singular lines → unbounded.
  * Findings: KW510 (unbounded, warning), KW511 (bounded but not Hilbert–Schmidt, info), KW512 (weakly singular
  * but Hilbert–Schmidt, info). Claims: `bounded` (KW604), `hilbert-schmidt` (KW605).
  */
 import type { BoundednessClass, BoundednessReport } from '../analysis/types';
-import type { SingularityEstimate } from '../numerics/engine/singularity';
+import type { LocalVerdict, LocusGeometry } from '../numerics/engine/singularity';
 import type { ClaimVerdict, CheckContext, Finding } from './types';
-import { holds } from './types';
+import { holds, undecided } from './types';
 import { findCrossings } from './curves';
 import { PointEvaluator, describePlace, fmt, inSquare } from './sampling';
 
@@ -27,12 +25,19 @@ export interface Singularity {
   readonly where: string;
   readonly type: 'power' | 'log';
   readonly exponent: number;
+  /** Error of the exponent (0 when it is read from the expression). */
+  readonly exponentError: number;
   readonly class: BoundednessClass;
+  /** Whether this singularity alone leaves the operator bounded / Hilbert–Schmidt (with its exponent's error). */
+  readonly bounded: LocalVerdict;
+  readonly hilbertSchmidt: LocalVerdict;
   /** A point of the square on the singular set. */
   readonly at: readonly [number, number];
   readonly point: boolean;
   /** True for a curve that is not a straight line of the expression (located numerically). */
   readonly curve: boolean;
+  /** A point, a line t = c or s = c, an oblique line, or a curve. */
+  readonly geometry: LocusGeometry | 'curve';
 }
 
 export interface BoundednessFacts {
@@ -43,21 +48,31 @@ export interface BoundednessFacts {
   readonly reason: string | null;
   /** True when the engine produced a spectrum although the operator is unbounded (it must not be reported). */
   readonly dropSpectrum: boolean;
+  /**
+   * Why boundedness or the Hilbert–Schmidt property is undecided (an exponent whose error interval contains the
+   * threshold), as clauses for messages; null when decided. The report's class is then the best class not excluded
+   * ('bounded' while boundedness is undecided, with the spectrum dropped), and the claims are undecided.
+   */
+  readonly undecided: { readonly bounded: string | null; readonly hilbertSchmidt: string | null };
 }
 
 const classRank: Record<BoundednessClass, number> = { 'hilbert-schmidt': 0, bounded: 1, unbounded: 2 };
 
-function classOf(type: 'power' | 'log', exponent: number, point: boolean, engine?: SingularityEstimate): BoundednessClass {
-  if (type === 'log') return 'hilbert-schmidt';
-  if (point) return exponent < 1 - 0.02 ? 'hilbert-schmidt' : exponent <= 1 + 0.02 ? 'bounded' : 'unbounded';
-  if (engine) return !engine.integrable ? 'unbounded' : engine.squareIntegrable ? 'hilbert-schmidt' : 'bounded';
-  return exponent < 0.5 - 1e-6 ? 'hilbert-schmidt' : exponent < 1 - 1e-6 ? 'bounded' : 'unbounded';
+function classOf(bounded: LocalVerdict, hs: LocalVerdict): BoundednessClass {
+  if (bounded === 'fails') return 'unbounded';
+  return hs === 'holds' ? 'hilbert-schmidt' : 'bounded';
+}
+
+/** α as written (two decimals at least: 1.50, 0.996) or as measured with its error (0.703 ± 0.004). */
+export function fmtExponent(exponent: number, error: number): string {
+  if (error === 0) return Number(exponent.toFixed(2)) === exponent ? exponent.toFixed(2) : fmt(exponent, 12);
+  return `${exponent.toFixed(3)} ± ${fmt(error, 2)}`;
 }
 
 /** Growth of |K| along the normal of a curve point: the log–log slope between distances 10⁻⁵ and 10⁻⁷ of L. */
 function growthAt(ev: PointEvaluator, t: number, s: number, n: readonly [number, number], a: number, b: number) {
   const L = b - a;
-  let best: { type: 'power' | 'log'; exponent: number } | null = null;
+  let best: { type: 'power' | 'log'; exponent: number; error: number } | null = null;
   for (const side of [1, -1]) {
     const ys: number[] = [];
     for (const e of [4, 5, 6, 7]) {
@@ -68,16 +83,28 @@ function growthAt(ev: PointEvaluator, t: number, s: number, n: readonly [number,
       ys.push(ev.abs(pt, ps));
     }
     if (ys.length < 4 || !ys.every(Number.isFinite)) continue;
-    const slope = (Math.log(Math.max(ys[3], 1e-300)) - Math.log(Math.max(ys[1], 1e-300))) / (2 * Math.LN10);
+    const lg = ys.map((y) => Math.log(Math.max(y, 1e-300)));
+    const slope = (lg[3] - lg[1]) / (2 * Math.LN10);
+    const slope1 = (lg[2] - lg[0]) / (2 * Math.LN10);
     const d1 = ys[2] - ys[1];
     const d2 = ys[3] - ys[2];
     const linearInLog = d1 > 0 && Math.abs(d2 - d1) <= 0.05 * Math.abs(d1);
-    let g: { type: 'power' | 'log'; exponent: number } | null = null;
-    if (linearInLog && slope < 0.3) g = { type: 'log', exponent: 0 };
-    else if (slope > 0.03) g = { type: 'power', exponent: Math.round(slope * 100) / 100 };
+    let g: { type: 'power' | 'log'; exponent: number; error: number } | null = null;
+    // The curve is located by bisection to rounding, and its normal by differences: a wider error than on a line.
+    if (linearInLog && slope < 0.3) g = { type: 'log', exponent: 0, error: 0 };
+    else if (slope > 0.03) g = { type: 'power', exponent: slope, error: Math.max(3 * Math.abs(slope - slope1), 0.01) };
     if (g && (!best || (g.type === 'power' && (best.type === 'log' || g.exponent > best.exponent)))) best = g;
   }
   return best;
+}
+
+/** A curve crossed transversally is like an oblique line: Schur's test for α < 1, Hilbert–Schmidt for α < 1/2. */
+function curveVerdicts(g: { type: 'power' | 'log'; exponent: number; error: number }): { bounded: LocalVerdict; hs: LocalVerdict } {
+  if (g.type === 'log') return { bounded: 'holds', hs: 'holds' };
+  const hi = g.exponent + g.error;
+  const lo = g.exponent - g.error;
+  const v = (h: boolean, f: boolean): LocalVerdict => (h ? 'holds' : f ? 'fails' : 'undecided');
+  return { bounded: v(hi < 1, lo >= 1), hs: v(hi < 0.5, lo >= 0.5) };
 }
 
 export function measureBoundedness(ctx: CheckContext): BoundednessFacts {
@@ -86,8 +113,9 @@ export function measureBoundedness(ctx: CheckContext): BoundednessFacts {
   for (const s of ctx.engine.singularities) {
     if (s.type === 'none') continue;
     found.push({
-      where: describePlace(s.locus.line, a, b), type: s.type, exponent: s.exponent, point: s.point, at: s.at, curve: false,
-      class: classOf(s.type, s.exponent, s.point, s),
+      where: describePlace(s.locus.line, a, b), type: s.type, exponent: s.exponent, exponentError: s.exponentError,
+      point: s.point, at: s.at, curve: false, geometry: s.geometry, bounded: s.bounded, hilbertSchmidt: s.hilbertSchmidt,
+      class: classOf(s.bounded, s.hilbertSchmidt),
     });
   }
   const ev = new PointEvaluator(ctx.compiled);
@@ -95,13 +123,18 @@ export function measureBoundedness(ctx: CheckContext): BoundednessFacts {
     if (u.kind !== 'singular' || u.node.op === 'const') continue;
     let worst: Singularity | null = null;
     for (const p of findCrossings(u.node, a, b)) {
-      const g = growthAt(ev, p.t, p.s, p.normal, a, b);
+      let g = growthAt(ev, p.t, p.s, p.normal, a, b);
       if (!g) continue;
-      const cls = classOf(g.type, g.exponent, false);
+      // 1/g or g^p with g analytic and a simple zero here: the exponent as written, when the measurement agrees.
+      const w = u.written;
+      if (w && g.type === 'power' && Math.abs(g.exponent - w.exponent) <= g.error + 0.02) g = { type: 'power', exponent: w.exponent, error: 0 };
+      const v = curveVerdicts(g);
+      const cls = classOf(v.bounded, v.hs);
       if (!worst || classRank[cls] > classRank[worst.class] || (cls === worst.class && g.exponent > worst.exponent)) {
         worst = {
           where: `a curve located numerically through t = ${fmt(p.t, 4)}, s = ${fmt(p.s, 4)}`,
-          type: g.type, exponent: g.exponent, point: false, curve: true, at: [p.t, p.s], class: cls,
+          type: g.type, exponent: g.exponent, exponentError: g.error, point: false, curve: true, geometry: 'curve', at: [p.t, p.s], class: cls,
+          bounded: v.bounded, hilbertSchmidt: v.hs,
         };
       }
     }
@@ -113,11 +146,22 @@ export function measureBoundedness(ctx: CheckContext): BoundednessFacts {
   let cls: BoundednessClass = worst ? worst.class : 'hilbert-schmidt';
   let reason: string | null = null;
   if (worst && worst.class === 'unbounded') {
-    reason = `|K| grows like d^(−${worst.exponent.toFixed(2)}) toward ${worst.where}, which is not integrable there`;
+    reason = `${growth(worst)} toward ${worst.where}, ${worst.point
+      ? 'faster than 1/r at a point, so the operator is not bounded there'
+      : worst.geometry !== 'axis' ? 'which is not integrable there' : 'which is not square-integrable across a line t = c or s = c, so T maps a function to one outside L²'}`;
   } else if (notFinite) {
     cls = 'unbounded';
     reason = 'K is infinite or undefined at points inside the square, away from the lines where the expression is singular';
   }
+  const open = (key: 'bounded' | 'hilbertSchmidt', threshold: string) => {
+    const u = found.find((f) => f[key] === 'undecided');
+    return u ? `${growth(u)} toward ${u.where}, and ${threshold} lies within the exponent's error` : null;
+  };
+  const undecided = {
+    bounded: cls === 'unbounded' ? null : open('bounded', 'the threshold of boundedness'),
+    hilbertSchmidt: cls === 'unbounded' || found.some((f) => f.hilbertSchmidt === 'fails') ? null : open('hilbertSchmidt', 'the threshold of square-integrability'),
+  };
+  if (cls === 'hilbert-schmidt' && undecided.hilbertSchmidt) cls = 'bounded';
   return {
     report: {
       class: cls,
@@ -126,12 +170,13 @@ export function measureBoundedness(ctx: CheckContext): BoundednessFacts {
     },
     singularities: found,
     reason,
-    dropSpectrum: cls === 'unbounded' && ctx.engine.spectrum !== null,
+    dropSpectrum: (cls === 'unbounded' || undecided.bounded !== null) && ctx.engine.spectrum !== null,
+    undecided,
   };
 }
 
 function growth(s: Singularity): string {
-  return s.type === 'log' ? '|K| grows like log(1/d)' : `|K| grows like d^(−${s.exponent.toFixed(2)})`;
+  return s.type === 'log' ? '|K| grows like log(1/d)' : `|K| grows like d^(−${fmtExponent(s.exponent, s.exponentError)})`;
 }
 
 export function boundednessFindings(ctx: CheckContext, f: BoundednessFacts): Finding[] {
@@ -141,20 +186,24 @@ export function boundednessFindings(ctx: CheckContext, f: BoundednessFacts): Fin
   if (f.report.class === 'unbounded') {
     return [{ name: 'unbounded', args: { name: ctx.name, a: fmt(a), b: fmt(b), reason: f.reason ?? 'unknown reason' }, figures, covers: ['bounded', 'hilbert-schmidt'] }];
   }
+  if (f.undecided.bounded || f.undecided.hilbertSchmidt) return [];
   if (f.report.class === 'bounded' && worst) {
-    return [{ name: 'not-hilbert-schmidt', args: { name: ctx.name, exponent: worst.exponent.toFixed(2), where: worst.where }, figures, covers: ['hilbert-schmidt'] }];
+    return [{ name: 'not-hilbert-schmidt', args: { name: ctx.name, exponent: fmtExponent(worst.exponent, worst.exponentError), where: worst.where }, figures, covers: ['hilbert-schmidt'] }];
   }
   if (worst) return [{ name: 'weakly-singular', args: { name: ctx.name, growth: growth(worst), where: worst.where }, figures, covers: [] }];
   return [];
 }
 
 export function boundedClaim(ctx: CheckContext, f: BoundednessFacts): ClaimVerdict {
+  if (f.undecided.bounded) return undecided(`boundedness is undecided: ${f.undecided.bounded}`);
   if (f.report.class !== 'unbounded') return holds;
   return { outcome: 'fails', diagnostic: 'bounded-claim-failed', args: { name: ctx.name, evidence: f.reason ?? 'unknown reason' }, figures: { exponent: f.report.exponent } };
 }
 
 export function hilbertSchmidtClaim(ctx: CheckContext, f: BoundednessFacts): ClaimVerdict {
   if (f.report.class === 'hilbert-schmidt') return holds;
+  const open = f.undecided.hilbertSchmidt ?? f.undecided.bounded;
+  if (open) return undecided(`the Hilbert–Schmidt property is undecided: ${open}`);
   const worst = f.singularities[0];
   const evidence = f.report.class === 'unbounded'
     ? `the operator is not even bounded: ${f.reason ?? 'unknown reason'}`

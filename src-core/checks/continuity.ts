@@ -16,7 +16,7 @@
  * Finding: KW520 (jump, info), KW521 (kink, info). Claim: `continuous` (KW603).
  */
 import type { ContinuityClass, ContinuityReport } from '../analysis/types';
-import type { BoundednessFacts } from './boundedness';
+import { fmtExponent, type BoundednessFacts } from './boundedness';
 import type { ClaimVerdict, CheckContext, Finding } from './types';
 import { holds } from './types';
 import { findCrossings } from './curves';
@@ -124,7 +124,7 @@ export function measureContinuity(ctx: CheckContext, bounded: BoundednessFacts):
     where = worstSingular.where;
     evidence = worstSingular.type === 'log'
       ? `is singular: |K| grows like log(1/d) toward ${where}`
-      : `is singular: |K| grows like d^(−${worstSingular.exponent.toFixed(2)}) toward ${where}`;
+      : `is singular: |K| grows like d^(−${fmtExponent(worstSingular.exponent, worstSingular.exponentError)}) toward ${where}`;
   } else if (bounded.report.class === 'unbounded') {
     cls = 'singular';
     evidence = `is not finite: ${bounded.reason ?? 'unknown reason'}`;

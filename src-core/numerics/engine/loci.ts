@@ -8,7 +8,10 @@
  */
 import type { TextRange } from '../../syntax/textRange';
 import type { IrFunction, IrNode } from '../../semantics/ir';
-import { closeOver } from '../../semantics/irTools';
+import { closeOver, slotCountOf } from '../../semantics/irTools';
+import { compileKernel } from '../../semantics/evaluator';
+import { mayBeComplex } from '../../semantics/lower';
+import { isAnalytic, pointLoci, vanishesOn, type PointLocusFinding } from './lociPoints';
 
 /** The line ct·t + cs·s + c0 = 0, normalised so that max(|ct|, |cs|) = 1 and the first nonzero of (ct, cs) is > 0. */
 export interface Line {
@@ -24,6 +27,20 @@ export interface Locus {
   readonly kind: LocusKind;
   /** The expression node that creates it. */
   readonly range: TextRange;
+  /**
+   * The growth of |K| toward the line as written in the expression, when one node alone decides it: |ℓ|^(−α) from a
+   * power with a constant exponent of a base vanishing to a known order on ℓ, or log|ℓ|, and no other part of the
+   * expression mentions ℓ (so nothing can cancel or change the order). Checked against the measured growth by
+   * singularity.ts before it is used.
+   */
+  readonly written?: { readonly type: 'power' | 'log'; readonly exponent: number };
+  /**
+   * A division by an affine ℓ whose numerator is analytic and vanishes on ℓ: the quotient is analytic across the line
+   * (Hadamard's lemma: an analytic g with g = 0 on ℓ = 0 is ℓ·h with h analytic), so the kernel is smooth there; the
+   * locus is kept (as a kink, which needs no singular quadrature) only so that no rule evaluates K on the line, where
+   * the expression is 0/0.
+   */
+  readonly removable?: boolean;
 }
 
 export interface LociResult {
@@ -33,13 +50,24 @@ export interface LociResult {
    * `node` is the expression whose zero set it is, closed over its bindings (a function of t and s), so callers can
    * test numerically whether it vanishes on the square at all (for comparisons: the difference; else a constant).
    */
-  readonly unknown: readonly { kind: LocusKind; range: TextRange; node: IrNode }[];
+  readonly unknown: readonly UnknownLocus[];
   /**
    * Places where a cap on the number of loci was hit: a floor whose argument crosses more integers inside the square
    * than `cap` (`lines` of them; the one nearest the middle is kept as a locus, so the checks see the jumps, and the
    * rest is left to uniform refinement, as for an unknown locus).
    */
   readonly capped: readonly LociCap[];
+}
+
+export interface UnknownLocus {
+  readonly kind: LocusKind;
+  readonly range: TextRange;
+  readonly node: IrNode;
+  /**
+   * For a singular curve g = 0 from 1/g or g^p (p < 0 constant) with g analytic: |K| ~ d^(−α) with α = 1 or −p where
+   * the gradient of g does not vanish (a simple zero). To be checked against the measured growth before use.
+   */
+  readonly written?: { readonly type: 'power'; readonly exponent: number };
 }
 
 export interface LociCap {
@@ -76,8 +104,10 @@ class LociFinder {
   private readonly bindings = new Map<number, IrNode>();
   private readonly affineCache = new Map<IrNode, Affine | null>();
   readonly loci: Locus[] = [];
-  readonly unknown: { kind: LocusKind; range: TextRange; node: IrNode }[] = [];
+  readonly unknown: UnknownLocus[] = [];
   readonly capped: LociCap[] = [];
+  /** Candidates for Locus.written: the line, what the node says, and the part of the tree that mentions the line. */
+  readonly written: { line: Line; type: 'power' | 'log'; exponent: number; inside: IrNode }[] = [];
 
   constructor(private readonly domain: readonly [number, number]) {}
 
@@ -165,15 +195,77 @@ class LociFinder {
     }
   }
 
-  private add(lines: Line[] | null, kind: LocusKind, range: TextRange, zeroOf?: IrNode): void {
+  private add(lines: Line[] | null, kind: LocusKind, range: TextRange, zeroOf?: IrNode, removable = false, power?: number): void {
     if (!lines) {
-      this.unknown.push({ kind, range, node: zeroOf ? this.closeOver(zeroOf) : { op: 'const', re: 0, im: 0, range } });
+      const node = zeroOf ? this.closeOver(zeroOf) : { op: 'const' as const, re: 0, im: 0, range };
+      const analytic = zeroOf !== undefined && power !== undefined && power < 0 && isAnalytic(zeroOf, (slot) => this.bindings.get(slot));
+      this.unknown.push(analytic ? { kind, range, node, written: { type: 'power', exponent: -power } } : { kind, range, node });
       return;
     }
     for (const line of lines) {
       const existing = this.loci.findIndex((l) => sameLine(l.line, line));
-      if (existing < 0) this.loci.push({ line, kind, range });
-      else if (rank[kind] > rank[this.loci[existing].kind]) this.loci[existing] = { line, kind, range };
+      const locus: Locus = removable ? { line, kind, range, removable } : { line, kind, range };
+      if (existing < 0) this.loci.push(locus);
+      else if (rank[kind] > rank[this.loci[existing].kind]) this.loci[existing] = locus;
+      else if (this.loci[existing].removable && !removable && kind === this.loci[existing].kind) this.loci[existing] = locus;
+    }
+  }
+
+  /** The order to which n vanishes on the line (|n| ~ d^order), for products of powers of affine parts; else null. */
+  vanishingOrder(n: IrNode, line: Line): number | null {
+    const a = this.affine(n);
+    if (a) {
+      if (a.ct === 0 && a.cs === 0) return a.c0 !== 0 ? 0 : null;
+      const l = normaliseLine(a);
+      return l && sameLine(l, line) ? 1 : 0;
+    }
+    switch (n.op) {
+      case 'neg': return this.vanishingOrder(n.a, line);
+      case 'let': return this.vanishingOrder(n.body, line);
+      case 'call':
+        if (n.fn === 'abs' || n.fn === 'conj') return this.vanishingOrder(n.args[0], line);
+        if (n.fn === 'sqrt') { const o = this.vanishingOrder(n.args[0], line); return o === null ? null : o / 2; }
+        return null;
+      case 'pow': {
+        const p = this.constantValue(n.b);
+        const o = this.vanishingOrder(n.a, line);
+        return p !== null && p > 0 && o !== null ? p * o : null;
+      }
+      case 'mul': {
+        const x = this.vanishingOrder(n.a, line);
+        const y = this.vanishingOrder(n.b, line);
+        return x !== null && y !== null ? x + y : null;
+      }
+      default: return null;
+    }
+  }
+
+  /** How many maximal affine parts of n are proportional to the line (bindings followed through their uses). */
+  mentions(n: IrNode, line: Line, depth = 0): number {
+    if (depth > 200) return Infinity;
+    const a = this.affine(n);
+    if (a) {
+      if (a.ct === 0 && a.cs === 0) return 0;
+      const l = normaliseLine(a);
+      return l && sameLine(l, line) ? 1 : 0;
+    }
+    switch (n.op) {
+      case 'const': return 0;
+      case 'var': { const b = this.bindings.get(n.slot); return b ? this.mentions(b, line, depth + 1) : 0; }
+      case 'let': return this.mentions(n.body, line, depth + 1);
+      case 'neg': case 'not': return this.mentions(n.a, line, depth + 1);
+      case 'call': return n.args.reduce((k, x) => k + this.mentions(x, line, depth + 1), 0);
+      case 'cond': return this.mentions(n.test, line, depth + 1) + this.mentions(n.then, line, depth + 1) + this.mentions(n.otherwise, line, depth + 1);
+      default: return this.mentions(n.a, line, depth + 1) + this.mentions(n.b, line, depth + 1);
+    }
+  }
+
+  private noteWritten(lines: Line[] | null, base: IrNode, power: number | null): void {
+    if (!lines) return;
+    for (const line of lines) {
+      if (power === null) { this.written.push({ line, type: 'log', exponent: 0, inside: base }); continue; }
+      const order = this.vanishingOrder(base, line);
+      if (order !== null && order > 0 && power < 0) this.written.push({ line, type: 'power', exponent: -power * order, inside: base });
     }
   }
 
@@ -312,7 +404,17 @@ class LociFinder {
         }
         case 'div': {
           const denominator = this.affine(n.b);
-          if (!(denominator && denominator.ct === 0 && denominator.cs === 0)) this.add(this.zeroLines(n.b), 'singular', n.range, n.b);
+          if (!(denominator && denominator.ct === 0 && denominator.cs === 0)) {
+            const line = denominator ? normaliseLine(denominator) : null;
+            const lookup = (slot: number) => this.bindings.get(slot);
+            if (line && isAnalytic(n.a, lookup) && vanishesOn(n.a, line, (m) => this.affine(m), lookup)) {
+              this.add([line], 'kink', n.range, n.b, true);
+            } else {
+              const lines = this.zeroLines(n.b);
+              this.add(lines, 'singular', n.range, n.b, false, -1);
+              this.noteWritten(lines, n.b, -1);
+            }
+          }
           stack.push(n.b, n.a);
           break;
         }
@@ -321,7 +423,12 @@ class LociFinder {
           const wholePower = p && p.ct === 0 && p.cs === 0 && Number.isInteger(p.c0) && p.c0 >= 0;
           const base = this.affine(n.a);
           const constantBase = base && base.ct === 0 && base.cs === 0;
-          if (!wholePower && !constantBase) this.add(this.zeroLines(n.a), 'singular', n.range, n.a);
+          if (!wholePower && !constantBase) {
+            const lines = this.zeroLines(n.a);
+            const constant = p && p.ct === 0 && p.cs === 0 ? p.c0 : undefined;
+            this.add(lines, 'singular', n.range, n.a, false, constant);
+            if (constant !== undefined) this.noteWritten(lines, n.a, constant);
+          }
           stack.push(n.b, n.a);
           break;
         }
@@ -330,7 +437,13 @@ class LociFinder {
           switch (n.fn) {
             case 'abs': this.add(this.zeroLines(x), 'kink', n.range, x); break;
             case 'sign': this.add(this.zeroLines(x), 'jump', n.range, x); break;
-            case 'sqrt': case 'log': this.add(this.zeroLines(x), 'singular', n.range, x); break;
+            case 'sqrt': this.add(this.zeroLines(x), 'singular', n.range, x); break;
+            case 'log': {
+              const lines = this.zeroLines(x);
+              this.add(lines, 'singular', n.range, x);
+              if (lines) for (const l of lines) if (this.vanishingOrder(x, l) !== null) this.noteWritten([l], x, null);
+              break;
+            }
             case 'floor': {
               const a = this.affine(x);
               const found = a ? this.integerLines(a) : null;
@@ -374,5 +487,43 @@ export function findLoci(fn: IrFunction, domain: readonly [number, number]): Loc
     const scale = Math.max(1, Math.abs(a), Math.abs(b));
     return Math.min(...v) <= 1e-12 * scale && Math.max(...v) >= -1e-12 * scale;
   };
-  return { loci: finder.loci.filter((l) => meets(l.line)), unknown: finder.unknown, capped: finder.capped };
+  // Exponents as written: one node decides the growth toward the line, and nothing outside it mentions the line.
+  const loci = finder.loci.map((l): Locus => {
+    if (l.kind !== 'singular') return l;
+    const cands = finder.written.filter((w) => sameLine(w.line, l.line));
+    if (cands.length !== 1 || !Number.isFinite(cands[0].exponent)) return l;
+    const w = cands[0];
+    if (finder.mentions(fn.root, l.line) !== finder.mentions(w.inside, l.line)) return l;
+    return { ...l, written: { type: w.type, exponent: w.exponent } };
+  });
+  // Singular places that are not lines but points or edges of the square (max(t, s)^(−0.7) at the corner).
+  const unknown: UnknownLocus[] = [];
+  for (const u of finder.unknown) {
+    if (u.kind !== 'singular' || u.node.op === 'const') { unknown.push(u); continue; }
+    const found = pointLoci(evaluatorOf(u.node), a, b);
+    for (const line of found.lines) {
+      if (!loci.some((l) => sameLine(l.line, line))) loci.push({ line, kind: 'singular', range: u.range });
+      else {
+        const k = loci.findIndex((l) => sameLine(l.line, line));
+        if (loci[k].kind !== 'singular') loci[k] = { line, kind: 'singular', range: u.range };
+      }
+    }
+    if (!found.explained) unknown.push(u);
+  }
+  return { loci: loci.filter((l) => meets(l.line)), unknown, capped: finder.capped };
+}
+
+function evaluatorOf(node: IrNode): PointLocusFinding['evaluate'] {
+  const slots = slotCountOf(node);
+  const fn = { root: node, arity: 2, slotCount: slots, complex: mayBeComplex(node, slots) };
+  const kernel = compileKernel(fn);
+  const t = new Float64Array(1);
+  const s = new Float64Array(1);
+  const re = new Float64Array(1);
+  const im = new Float64Array(1);
+  return (x: number, y: number) => {
+    t[0] = x; s[0] = y;
+    kernel.evaluateColumns([t, s], re, fn.complex ? im : null);
+    return fn.complex ? { re: re[0], im: im[0] } : { re: re[0], im: 0 };
+  };
 }

@@ -1,14 +1,31 @@
 /**
- * How fast |K| grows toward each singular locus: |K| ~ d^(−α) at distance d from the line (or log(1/d)). The
- * exponent decides the operator's class by standard facts (common practice; e.g. R. Kress, Linear Integral
- * Equations, 3rd ed. 2014, §2.3 on weakly singular kernels): along a line, ∫|K| is finite iff α < 1 (then Schur's
- * test bounds the operator), ∫∫|K|² is finite iff α < 1/2 (Hilbert–Schmidt); a logarithm is both. At an isolated
- * point of the square the 2D integrals are finite for α < 2 and α < 1 respectively.
- * The exponent is read from a log–log fit of |K| at distances 10⁻⁴ … 10⁻⁷ of the domain length on both sides of
- * the locus, at several points along it.
+ * How fast |K| grows toward each singular locus: |K| ~ d^(−α) at distance d from the line (or log(1/d)), and what
+ * that says about the operator on L²[a, b]. Standard facts (common practice; R. Kress, Linear Integral Equations,
+ * 3rd ed. 2014, §2.3 on weakly singular kernels; P. R. Halmos & V. S. Sunder, Bounded Integral Operators on L²
+ * Spaces, 1978, §5), by the geometry of the locus:
+ *  - an oblique line (t = s, t + s = 1: both variables move along it): ∫|K| ds is bounded uniformly for α < 1, so
+ *    Schur's test bounds T; for α ≥ 1, K is not integrable across the line (unbounded; a kernel of one sign near the
+ *    line, tested with an indicator function there); ∫∫|K|² is finite iff α < 1/2;
+ *  - an axis-parallel line t = c (or s = c): K ≈ |t − c|^(−α)·h(t, s) with h(c, ·) ≠ 0 where measured, so
+ *    Tf ≈ |t − c|^(−α)·∫h(c, s) f(s) ds, which is in L² iff α < 1/2 (a test function f supported where h(c, ·) has
+ *    one sign); bounded iff Hilbert–Schmidt iff α < 1/2 (so (t·s)^(−0.6) is unbounded: t^(−0.6) ∉ L²);
+ *  - a point (a corner, or a line that touches the square there only): if |K| ≤ C·r^(−α) in every direction, ∫∫|K|²
+ *    is finite for α < 1 (polar coordinates), and for α ≤ 1 T is dominated by C/(t + s), bounded by Hilbert's
+ *    inequality (G. H. Hardy, J. E. Littlewood & G. Pólya, Inequalities, 1934, §9.1); if |K| ≥ c·r^(−α) along the
+ *    diagonal direction, f_ε = ε^(−1/2) on [ε, (1 + δ)ε] gives ⟨Kf_ε, f_ε⟩ ~ ε^(1−α) (unbounded for α > 1) and |K|²
+ *    is not integrable for α ≥ 1. The upper exponent is the largest over five directions, the lower one the diagonal's.
+ * The exponent is measured by log–log slopes of |K| at distances 10⁻⁴ … 10⁻⁷ of the domain length (on both sides of a
+ * line, at three points along it), with an error of three times the difference between the slopes of the two halves
+ * (at least 0.002). Where the expression states it (Locus.written) and the measurement agrees, the written value is
+ * used exactly. A verdict is 'holds' or 'fails' only when the exponent's interval lies on one side of the threshold;
+ * otherwise 'undecided'.
  */
 import type { CompiledKernel } from '../../semantics/evaluator';
 import type { Line, Locus } from './loci';
+
+export type LocalVerdict = 'holds' | 'fails' | 'undecided';
+
+export type LocusGeometry = 'point' | 'axis' | 'oblique';
 
 export interface SingularityEstimate {
   readonly locus: Locus;
@@ -20,8 +37,17 @@ export interface SingularityEstimate {
   readonly point: boolean;
   /** A point on the locus where the growth was measured. */
   readonly at: readonly [number, number];
+  /** False only when the operator is surely unbounded (the engine then computes no spectrum). */
   readonly integrable: boolean;
+  /** True only when the singularity is surely square-integrable (the engine then estimates ‖K‖_HS). */
   readonly squareIntegrable: boolean;
+  readonly geometry: LocusGeometry;
+  /** Error of the exponent: 0 when it is read from the expression. */
+  readonly exponentError: number;
+  /** True when the exponent (or the logarithm) was read from the expression and confirmed by the measurement. */
+  readonly written: boolean;
+  readonly bounded: LocalVerdict;
+  readonly hilbertSchmidt: LocalVerdict;
 }
 
 /** End points of the segment where the line meets the square [a, b]², or null. */
@@ -43,18 +69,52 @@ export function segmentInSquare(l: Line, a: number, b: number): [[number, number
   return [pts[0], pts[pts.length - 1]];
 }
 
+
+interface Growth {
+  readonly type: SingularityEstimate['type'];
+  readonly exponent: number;
+  readonly error: number;
+}
+
+/** The growth of |K| from a point p into the square along the unit direction (dt, ds); null when not measurable. */
+function growthAlong(absK: (t: number, s: number) => number, p: readonly [number, number], dt: number, ds: number,
+  a: number, b: number): Growth | null {
+  const L = b - a;
+  const ys: number[] = [];
+  for (const e of [4, 5, 6, 7]) {
+    const d = L * 10 ** -e;
+    const t = p[0] + d * dt;
+    const s = p[1] + d * ds;
+    if (!(t >= a && t <= b && s >= a && s <= b)) return null;
+    ys.push(absK(t, s));
+  }
+  if (!ys.every(Number.isFinite)) return null;
+  const logs = ys.map((y) => Math.log(Math.max(y, 1e-300)));
+  const slope1 = (logs[2] - logs[0]) / (2 * Math.LN10);
+  const slope2 = (logs[3] - logs[1]) / (2 * Math.LN10); // α ≈ d log|K| / d log(1/d)
+  const d1 = ys[2] - ys[1];
+  const d2 = ys[3] - ys[2];
+  const linearInLog = d1 > 0 && Math.abs(d2 - d1) <= 0.05 * Math.abs(d1);
+  const error = Math.max(3 * Math.abs(slope2 - slope1), 2e-3);
+  if (linearInLog && slope2 < 0.3) return { type: 'log', exponent: 0, error: 0 };
+  if (slope2 > 0.03) return { type: 'power', exponent: slope2, error };
+  return { type: 'none', exponent: 0, error: 0 };
+}
+
+function rankOf(g: Growth): number {
+  return g.type === 'power' ? 2 + g.exponent : g.type === 'log' ? 1 : 0;
+}
+
+function verdict(holdsIf: boolean, failsIf: boolean): LocalVerdict {
+  return holdsIf ? 'holds' : failsIf ? 'fails' : 'undecided';
+}
+
 export function estimateSingularity(kernel: CompiledKernel, locus: Locus, a: number, b: number): SingularityEstimate | null {
   const seg = segmentInSquare(locus.line, a, b);
   if (!seg) return null;
   const L = b - a;
   const point = Math.hypot(seg[1][0] - seg[0][0], seg[1][1] - seg[0][1]) <= 1e-12 * L;
-  const norm = Math.hypot(locus.line.ct, locus.line.cs);
-  const nt = locus.line.ct / norm;
-  const ns = locus.line.cs / norm;
-  const fractions = point ? [0] : [0.23, 0.5, 0.77];
-  const exps = [4, 5, 6, 7];
-  let best: { type: SingularityEstimate['type']; exponent: number; at: [number, number] } = { type: 'none', exponent: 0, at: seg[0] };
-  const inside = (t: number, s: number) => t >= a && t <= b && s >= a && s <= b;
+  const geometry: LocusGeometry = point ? 'point' : locus.line.ct === 0 || locus.line.cs === 0 ? 'axis' : 'oblique';
   const tBuf = new Float64Array(1);
   const sBuf = new Float64Array(1);
   const re = new Float64Array(1);
@@ -64,48 +124,76 @@ export function estimateSingularity(kernel: CompiledKernel, locus: Locus, a: num
     kernel.evaluateColumns([tBuf, sBuf], re, kernel.complex ? im : null);
     return Math.hypot(re[0], kernel.complex ? im[0] : 0);
   };
-  for (const f of fractions) {
-    const p: [number, number] = [seg[0][0] + f * (seg[1][0] - seg[0][0]), seg[0][1] + f * (seg[1][1] - seg[0][1])];
-    for (const side of [1, -1]) {
-      // For a corner point, step into the square along the diagonal direction away from the corner instead.
-      let dt = side * nt;
-      let ds = side * ns;
-      if (point) {
-        dt = p[0] <= a ? 1 : -1;
-        ds = p[1] <= a ? 1 : -1;
-        if (side < 0) continue;
-        const h = Math.SQRT1_2;
-        dt *= h; ds *= h;
+  const none = { type: 'none' as const, exponent: 0, error: 0 };
+  let worst: Growth = none;
+  let at: [number, number] = seg[0];
+  let upper = 0; // the largest α + error over all measurements (growth is at most this)
+  let lower = -Infinity; // the lower end of the exponent where growth is surely at least that (diagonal direction at a point)
+  const measured: Growth[] = [];
+  if (point) {
+    const p = seg[0];
+    const ut = p[0] <= a + 1e-12 * L ? 1 : -1;
+    const us = p[1] <= a + 1e-12 * L ? 1 : -1;
+    for (const theta of [0, Math.PI / 8, Math.PI / 4, (3 * Math.PI) / 8, Math.PI / 2]) {
+      const g = growthAlong(absK, p, ut * Math.cos(theta), us * Math.sin(theta), a, b);
+      if (!g) continue;
+      measured.push(g);
+      if (g.type === 'power') upper = Math.max(upper, g.exponent + g.error);
+      if (theta === Math.PI / 4 && g.type === 'power') lower = g.exponent - g.error;
+      if (rankOf(g) > rankOf(worst)) { worst = g; at = [p[0], p[1]]; }
+    }
+  } else {
+    const norm = Math.hypot(locus.line.ct, locus.line.cs);
+    const nt = locus.line.ct / norm;
+    const ns = locus.line.cs / norm;
+    for (const f of [0.23, 0.5, 0.77]) {
+      const p: [number, number] = [seg[0][0] + f * (seg[1][0] - seg[0][0]), seg[0][1] + f * (seg[1][1] - seg[0][1])];
+      for (const side of [1, -1]) {
+        const g = growthAlong(absK, p, side * nt, side * ns, a, b);
+        if (!g) continue;
+        measured.push(g);
+          if (g.type === 'power') {
+          upper = Math.max(upper, g.exponent + g.error);
+          lower = Math.max(lower, g.exponent - g.error);
+        }
+        if (rankOf(g) > rankOf(worst)) { worst = g; at = p; }
       }
-      const ys: number[] = [];
-      for (const e of exps) {
-        const d = L * 10 ** -e;
-        const t = p[0] + d * dt;
-        const s = p[1] + d * ds;
-        if (!inside(t, s)) break;
-        ys.push(absK(t, s));
-      }
-      if (ys.length < exps.length || !ys.every(Number.isFinite)) continue;
-      const logs = ys.map((y) => Math.log(Math.max(y, 1e-300)));
-      const slope = (logs[3] - logs[1]) / (2 * Math.LN10); // α ≈ d log|K| / d log(1/d)
-      const d1 = ys[2] - ys[1];
-      const d2 = ys[3] - ys[2];
-      const linearInLog = d1 > 0 && Math.abs(d2 - d1) <= 0.05 * Math.abs(d1);
-      let type: SingularityEstimate['type'] = 'none';
-      let exponent = 0;
-      if (linearInLog && slope < 0.3) type = 'log';
-      else if (slope > 0.03) { type = 'power'; exponent = Math.round(slope * 100) / 100; }
-      const rankOf = (x: { type: string; exponent: number }) => (x.type === 'power' ? 2 + x.exponent : x.type === 'log' ? 1 : 0);
-      if (rankOf({ type, exponent }) > rankOf(best)) best = { type, exponent, at: p };
     }
   }
-  // Along a line: bounded iff α < 1 (Schur's test), Hilbert–Schmidt iff α < 1/2. At a corner point the operator
-  // is bounded iff α ≤ 1 (α = 1 is the scale-invariant case of Hilbert's inequality for 1/(t + s); G. H. Hardy,
-  // J. E. Littlewood & G. Pólya, Inequalities, 1934, §9.1) and Hilbert–Schmidt iff α < 1.
-  const power = best.type === 'power';
+  // The written exponent, when every measurement agrees with it (within its error and 0.02).
+  let written = false;
+  const w = locus.written;
+  if (w && w.type === 'power' && worst.type === 'power' && measured.length > 0
+    && measured.every((g) => g.type === 'power' && Math.abs(g.exponent - w.exponent) <= g.error + 0.02)) {
+    worst = { type: 'power', exponent: w.exponent, error: 0 };
+    upper = w.exponent;
+    lower = w.exponent;
+    written = true;
+  } else if (w && w.type === 'log' && worst.type === 'log') {
+    written = true;
+  }
+  const power = worst.type === 'power';
+  const hiBound = upper;
+  let bounded: LocalVerdict;
+  let hilbertSchmidt: LocalVerdict;
+  if (!power) {
+    // A logarithm (or no growth) is square-integrable in every geometry.
+    bounded = 'holds';
+    hilbertSchmidt = 'holds';
+  } else if (geometry === 'oblique') {
+    bounded = verdict(hiBound < 1, lower >= 1);
+    hilbertSchmidt = verdict(hiBound < 0.5, lower >= 0.5);
+  } else if (geometry === 'axis') {
+    bounded = verdict(hiBound < 0.5, lower >= 0.5);
+    hilbertSchmidt = bounded;
+  } else {
+    bounded = verdict(hiBound <= 1, lower > 1);
+    hilbertSchmidt = verdict(hiBound < 1, lower >= 1);
+  }
   return {
-    locus, type: best.type, exponent: best.exponent, point, at: best.at,
-    integrable: !power || (point ? best.exponent <= 1 + 1e-6 : best.exponent < 1 - 1e-6),
-    squareIntegrable: !power || best.exponent < (point ? 1 : 0.5) - 1e-6,
+    locus, type: worst.type, exponent: worst.exponent, point, at,
+    integrable: bounded !== 'fails',
+    squareIntegrable: hilbertSchmidt === 'holds',
+    geometry, exponentError: worst.error, written, bounded, hilbertSchmidt,
   };
 }
