@@ -9,6 +9,9 @@ import type { CancellationToken } from '../util/cancellation';
 import { forgetHashes } from '../util/hashCache';
 import { runSpectralEngine, type SpectralResult } from '../numerics/engine/spectralEngine';
 import { crossCheckSeparable } from '../numerics/engine/degenerate';
+import { describeTriangular, detectTriangularSupport } from '../numerics/engine/triangular';
+import { compileKernel } from '../semantics/evaluator';
+import type { IrFunction } from '../semantics/ir';
 import type { AnalysisOptions, SpectrumReport } from './types';
 
 export interface KernelNumerics {
@@ -91,14 +94,39 @@ function compute(k: KernelSymbol, options: AnalysisOptions, token?: Cancellation
       notes.push((sym) => makeDiagnostic('methods-disagree', sym.nameRange, { name: sym.name, ...m }));
     }
   }
+  let reachedFigure = result.reached;
+  const volterra = quasinilpotentSpectrum(ir, domain, result, spectrum);
+  if (volterra) {
+    spectrum = volterra.spectrum;
+    reachedFigure = volterra.reached;
+  }
   if (!spectrum.converged) {
-    const reached = result.reached.toExponential(1);
+    const reached = reachedFigure.toExponential(1);
     const target = result.target.toExponential(0);
     notes.push((sym) => makeDiagnostic('not-converged', sym.nameRange, {
       name: sym.name, reached, target, budget: options.timeBudgetMs,
-    }, { figures: { reached: result.reached, target: result.target } }));
+    }, { figures: { reached: reachedFigure, target: result.target } }));
   }
   return { result, spectrum, notes };
+}
+
+/**
+ * A Volterra-type kernel (triangular support, see triangular.ts) with a square-integrable kernel is
+ * quasinilpotent: the Galerkin eigenvalues are spurious, so none is reported, and the accuracy reached is that of
+ * the norm alone. Null for every other kernel (or when a singularity makes |K|² not integrable: the argument needs it).
+ */
+function quasinilpotentSpectrum(ir: IrFunction, domain: readonly [number, number], result: SpectralResult, spectrum: SpectrumReport) {
+  if (result.hermitian || !result.singularities.every((s) => s.squareIntegrable)) return null;
+  const support = detectTriangularSupport(ir, domain, () => compileKernel(ir));
+  if (!support) return null;
+  const norm = spectrum.norm;
+  const reached = norm && norm.value > 0 ? norm.error / norm.value : norm ? 0 : Infinity;
+  const reason = `${describeTriangular(support.side)} (a Volterra operator, checked at ${support.checkedPoints} points) and |K|² is integrable, so T is quasinilpotent: σ(T) = {0}, no nonzero eigenvalue, spectral radius 0`;
+  const next: SpectrumReport = {
+    ...spectrum, eigenvalues: [], eigenfunctions: null, converged: reached <= result.target,
+    quasinilpotent: { side: support.side, reason },
+  };
+  return { spectrum: next, reached };
 }
 
 export function analyzeKernelNumerics(k: KernelSymbol, options: AnalysisOptions, token?: CancellationToken): KernelNumerics | null {

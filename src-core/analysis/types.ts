@@ -49,6 +49,19 @@ export interface SpectrumReport {
   /** True when the target accuracy was reached within the time budget. */
   readonly converged: boolean;
   readonly elapsedMs: number;
+  /**
+   * Set when an argument shows σ(T) = {0} (a Volterra-type kernel: K = 0 on one side of the diagonal, square
+   * integrable): `eigenvalues` is then empty, as T has no nonzero eigenvalue, and the spectral radius is 0.
+   */
+  readonly quasinilpotent?: QuasinilpotentReport;
+}
+
+/** Why the spectrum is {0}. */
+export interface QuasinilpotentReport {
+  /** 'lower': K(t, s) = 0 for s > t, so (Tf)(t) = ∫_a^t K(t, s) f(s) ds; 'upper': K(t, s) = 0 for s < t. */
+  readonly side: 'lower' | 'upper';
+  /** The argument in one sentence, for messages. */
+  readonly reason: string;
 }
 
 export interface KernelReport {

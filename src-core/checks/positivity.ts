@@ -2,6 +2,8 @@
  * Positive semidefiniteness: ∫∫ conj f(t) K(t, s) f(s) ≥ 0 for every f, which on a complex L² space implies that
  * T is self-adjoint; so a kernel that is not Hermitian is not positive.
  *
+ * The zero operator (Hilbert–Schmidt norm 0 ± 0, K = 0 on the sample grid) is positive, trivially: ⟨Tf, f⟩ = 0.
+ *
  * For a Hermitian kernel:
  *  - the most negative eigenvalue, from the engine's leading eigenvalues (with their errors) and from all
  *    eigenvalues of the Galerkin matrix A. Since ⟨A v, v⟩ = ⟨T f, f⟩ for f = Σ v_i φ_i, a negative eigenvalue of A
@@ -93,7 +95,32 @@ function inspectGrid(ctx: CheckContext, continuous: boolean): { certificate: Cer
   return { certificate, covarianceShape };
 }
 
+/** The positivity verdict last measured on an engine result, for checks that need it (the resolvent's enclosure). */
+const verdicts = new WeakMap<object, PositivityReport>();
+
+/** The report measurePositivity gave for this engine result, or undefined when it has not run on it. */
+export function positivityReportOf(engine: CheckContext['engine']): PositivityReport | undefined {
+  return verdicts.get(engine);
+}
+
 export function measurePositivity(ctx: CheckContext, sym: SymmetryFacts, cont: ContinuityFacts, bounded: BoundednessFacts): PositivityFacts {
+  const facts = measure(ctx, sym, cont, bounded);
+  verdicts.set(ctx.engine, facts.report);
+  return facts;
+}
+
+/**
+ * The zero operator: the Hilbert–Schmidt norm is 0 with error 0 (every Galerkin matrix of three levels vanishes)
+ * and K is 0 on the sample grid; ⟨Tf, f⟩ = 0 for every f, so it is positive, trivially.
+ */
+function isZeroOperator(ctx: CheckContext, bounded: BoundednessFacts): boolean {
+  const s = ctx.spectrum;
+  if (!s || bounded.report.class === 'unbounded' || !s.hsNorm || s.hsNorm.value !== 0 || s.hsNorm.error !== 0) return false;
+  if (!s.norm || s.norm.upper !== 0) return false;
+  return kernelScale(ctx.compiled, ctx.domain[0], ctx.domain[1]) === 0;
+}
+
+function measure(ctx: CheckContext, sym: SymmetryFacts, cont: ContinuityFacts, bounded: BoundednessFacts): PositivityFacts {
   const none = (evidence: string, holdsValue: boolean | null, covariance = false): PositivityFacts => ({
     report: { holds: holdsValue, minEigenvalue: null, certificate: null, mercer: null },
     effectiveRank: null, looksLikeCovariance: covariance, evidence, galerkinCount: 0,
@@ -101,6 +128,12 @@ export function measurePositivity(ctx: CheckContext, sym: SymmetryFacts, cont: C
   if (!sym.report.holds) return none('it is not Hermitian, and a positive operator is self-adjoint', false);
   const spectrum = ctx.spectrum;
   const finest = ctx.engine.finest;
+  if (isZeroOperator(ctx, bounded)) {
+    return {
+      report: { holds: true, minEigenvalue: { value: 0, error: 0 }, certificate: null, mercer: null },
+      effectiveRank: null, looksLikeCovariance: false, evidence: null, galerkinCount: finest?.matrix.n ?? 0,
+    };
+  }
   if (bounded.report.class === 'unbounded' || !spectrum || !finest || spectrum.eigenvalues.length === 0) {
     return none('there is no spectrum to decide it', null);
   }

@@ -14,14 +14,18 @@
  *  - for Hermitian T, ‖(μ − T)⁻¹‖ = 1 / dist(μ, σ(T)) (the spectral theorem; for non-normal T it is only a lower
  *    bound and is not reported);
  *  - the Neumann series converges exactly when |μ| exceeds the spectral radius max |λ|.
+ * When the eigenvalues leave μ undecided, an enclosure of the whole spectrum may still decide it (see `enclosure`):
+ * {0} for a quasinilpotent (Volterra-type) operator, [0, ‖T‖] for a positive one, ℝ for a Hermitian one, the disk
+ * |λ| ≤ ‖T‖ for any.
  * Finding: KW540 (the figures, info, on the claim). Claim: `resolvent μ` (KW608).
  */
-import type { ComplexFigure, Estimate, ResolventReport } from '../analysis/types';
+import type { ComplexFigure, Estimate, PositivityReport, ResolventReport } from '../analysis/types';
 import { roundingFloor } from '../numerics/engine/errorEstimate';
 import type { BoundednessFacts } from './boundedness';
 import type { ClaimVerdict, CheckContext } from './types';
 import { coarserHermitianEigenvalues, finestHermitianEigenvalues } from './galerkin';
 import { fmt, fmtComplex, fmtEstimate } from './sampling';
+import { positivityReportOf } from './positivity';
 
 interface Candidate { readonly re: number; readonly im: number; readonly error: number; readonly label: string }
 
@@ -57,7 +61,61 @@ function knownSpectrum(ctx: CheckContext, hermitian: boolean): { candidates: Can
   return { candidates, radius: finiteRank || !last ? 0 : Math.hypot(last.re, last.im) + last.error };
 }
 
-export function measureResolvent(ctx: CheckContext, mu: ComplexFigure, hermitian: boolean, bounded: BoundednessFacts): ResolventFacts {
+/**
+ * Spectral enclosures that decide μ without resolving eigenvalues: σ(T) = {0} for a quasinilpotent (Volterra-type)
+ * operator; σ(T) ⊂ [0, ‖T‖] for a positive one, so dist(μ, σ(T)) = |μ| for μ < 0, as 0 ∈ σ(T); σ(T) ⊂ ℝ for a
+ * Hermitian one, so dist(μ, σ(T)) ≥ |Im μ|; and σ(T) inside the disk |λ| ≤ ‖T‖ for every bounded operator (the
+ * spectral radius is at most the norm). (Common practice; e.g. E. Kreyszig, Introductory Functional Analysis with
+ * Applications, 1978, §7.3 and §9.2, from memory.) Null when none of them applies.
+ */
+function enclosure(ctx: CheckContext, mu: ComplexFigure, hermitian: boolean, positive: PositivityReport | undefined): ResolventFacts | null {
+  const spectrum = ctx.spectrum!;
+  const muText = fmtComplex(mu.re, mu.im, 8);
+  const modulus = Math.hypot(mu.re, mu.im);
+  const n = spectrum.norm;
+  const inSet = (distance: Estimate | null, resolventNorm: Estimate | null, neumann: boolean | null, why: string): ResolventFacts => {
+    const d = distance ? `dist(μ, σ(T)) = ${fmtEstimate(distance.value, distance.error)}` : '';
+    const r = resolventNorm ? `; ‖(μ − T)⁻¹‖ = ${fmtEstimate(resolventNorm.value, resolventNorm.error)}` : '';
+    const neu = neumann === true ? '; the Neumann series converges' : neumann === false ? '; the Neumann series diverges' : '';
+    return {
+      report: { mu, inResolventSet: true, distance, resolventNorm, neumannConverges: neumann },
+      summary: `μ = ${muText} is in the resolvent set of “${ctx.name}”: ${why}${d ? `, so ${d}` : ''}${r}${neu}.`,
+    };
+  };
+  if (spectrum.quasinilpotent) {
+    return inSet({ value: modulus, error: 0 }, null, true, spectrum.quasinilpotent.reason);
+  }
+  if (hermitian && positive?.holds === true && mu.im === 0 && mu.re < 0) {
+    // The positivity check's verdict is the premise: σ(T) ⊂ [0, ‖T‖] and 0 ∈ σ(T), so the nearest point is 0.
+    const d = -mu.re;
+    return inSet({ value: d, error: 0 }, { value: 1 / d, error: 0 }, null,
+      'T is positive, so σ(T) ⊂ [0, ‖T‖], and 0 ∈ σ(T) (T is compact)');
+  }
+  if (hermitian && mu.im !== 0) {
+    return inSet(null, null, null, `T is Hermitian, so σ(T) ⊂ ℝ and dist(μ, σ(T)) ≥ |Im μ| = ${fmt(Math.abs(mu.im), 6)} (‖(μ − T)⁻¹‖ ≤ ${fmt(1 / Math.abs(mu.im), 6)})`);
+  }
+  const upper = n ? Math.min(n.value + n.error, n.upper) : Infinity;
+  if (modulus > upper) {
+    return inSet(null, null, true, `|μ| = ${fmt(modulus, 6)} exceeds ‖T‖ ≤ ${fmt(upper, 6)}, which bounds the spectral radius`);
+  }
+  return null;
+}
+
+export function measureResolvent(
+  ctx: CheckContext, mu: ComplexFigure, hermitian: boolean, bounded: BoundednessFacts, positive?: PositivityReport,
+): ResolventFacts {
+  const generic = measureFromEigenvalues(ctx, mu, hermitian, bounded);
+  if (generic.report.inResolventSet !== null && !(ctx.spectrum?.quasinilpotent && generic.report.inResolventSet)) return generic;
+  if (!ctx.spectrum || bounded.report.class === 'unbounded' || (mu.re === 0 && mu.im === 0)) return generic;
+  // The quasinilpotent argument needs |K|² integrable; a Volterra-type kernel the boundedness check finds not
+  // Hilbert–Schmidt is left to the eigenvalues (undecided when they do not settle it).
+  if (ctx.spectrum.quasinilpotent && bounded.report.class !== 'hilbert-schmidt') {
+    return { ...generic, report: { ...generic.report, inResolventSet: null }, summary: 'K vanishes on one side of the diagonal but |K|² may not be integrable, so σ(T) = {0} is not shown' };
+  }
+  return enclosure(ctx, mu, hermitian, positive ?? positivityReportOf(ctx.engine)) ?? generic;
+}
+
+function measureFromEigenvalues(ctx: CheckContext, mu: ComplexFigure, hermitian: boolean, bounded: BoundednessFacts): ResolventFacts {
   const none = (summary: string, inSet: boolean | null = null, distance: Estimate | null = null): ResolventFacts => ({
     report: { mu, inResolventSet: inSet, distance, resolventNorm: null, neumannConverges: null }, summary,
   });

@@ -85,7 +85,7 @@ export function formatSpectrumFigures(spectrum: SpectrumReport): string {
   const parts: string[] = [];
   parts.push(spectrum.norm ? `norm ${formatEstimate(spectrum.norm.value, spectrum.norm.error)}` : 'norm unknown');
   const lead = spectrum.eigenvalues[0];
-  parts.push(lead ? `λ₁ ${formatEigenvalue(lead)}` : 'no eigenvalues');
+  parts.push(lead ? `λ₁ ${formatEigenvalue(lead)}` : spectrum.quasinilpotent ? 'no nonzero eigenvalues (σ(T) = {0}, Volterra type)' : 'no eigenvalues');
   return parts.join(', ');
 }
 
