@@ -9,6 +9,7 @@
 import type { LevelSolution } from '../numerics/engine/solveLevel';
 import { hermitianEigen, singularValues } from '../numerics/linalg';
 import { symmetricTridiagonalQl } from '../numerics/linalg/symmetricTridiagonalQl';
+import { timesPow2 } from '../numerics/engine/kernelScale';
 
 /** Indices of the basis functions of local degree ≤ maxDegree. */
 export function subBasis(level: LevelSolution, maxDegree: number): number[] {
@@ -52,6 +53,13 @@ export function coarserHermitianEigenvalues(level: LevelSolution): Float64Array 
   const drop = comparisonDrop(level);
   if (drop === 0) return null;
   const s = submatrix(level, subBasis(level, level.matrix.discretisation.degree - drop));
+  // Solved scaled by a power of two (exact) so that the largest entry is about 1: the solvers square entries, which
+  // overflow for a kernel of size 1e250 and underflow for 1e-250; the values are scaled back.
+  const k = unitExponent(s.re, s.im);
+  if (k !== 0) {
+    for (let i = 0; i < s.re.length; i++) s.re[i] = timesPow2(s.re[i], -k);
+    if (s.im) for (let i = 0; i < s.im.length; i++) s.im[i] = timesPow2(s.im[i], -k);
+  }
   let values: Float64Array;
   if (s.im) values = hermitianEigen(s.re, s.im, s.n).values;
   else {
@@ -66,8 +74,21 @@ export function coarserHermitianEigenvalues(level: LevelSolution): Float64Array 
     }
     values = symmetricTridiagonalQl(s.re, m).values;
   }
+  if (k !== 0) values = values.map((x) => timesPow2(x, k));
   subEigenCache.set(level, values);
   return values;
+}
+
+/** The power of two nearest the largest finite entry (0 when it is within 2^±8 of 1, or there is none). */
+function unitExponent(re: Float64Array, im: Float64Array | null): number {
+  let m = 0;
+  for (let i = 0; i < re.length; i++) {
+    const x = Math.max(Math.abs(re[i]), im ? Math.abs(im[i]) : 0);
+    if (Number.isFinite(x) && x > m) m = x;
+  }
+  if (!(m > 0)) return 0;
+  const k = Math.round(Math.log2(m));
+  return Math.abs(k) <= 8 ? 0 : k;
 }
 
 /** Eigenvalues of the Hermitian Galerkin matrix, descending by value (allRe is ordered by modulus). */

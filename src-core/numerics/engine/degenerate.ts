@@ -17,6 +17,7 @@ import { expandSeparable, termFactors } from './separable';
 import { meshBreakpoints, planMesh } from './mesh';
 import type { SpectralResult } from './spectralEngine';
 import type { Locus } from './loci';
+import { errorTimesPow2, prescaledIr, scaleKernel, timesPow2 } from './kernelScale';
 
 export interface DegenerateResult {
   readonly rank: number;
@@ -50,6 +51,24 @@ function innerProducts(fs: ((x: Float64Array) => { re: Float64Array; im: Float64
 
 export function degenerateSpectrum(
   ir: IrFunction, domain: readonly [number, number], hermitian: boolean, loci: readonly Locus[] = [],
+): DegenerateResult | null {
+  // A kernel near the ends of the double range (1e-320·t·s): its constant factor scaled by a power of two before
+  // evaluation when it takes it exactly, else its subnormal values' rounding as an absolute error (kernelScale.ts).
+  const [a, b] = domain;
+  const scaling = scaleKernel(ir, compileKernel(ir), a, b);
+  const pre = scaling.beforeEvaluation ? prescaledIr(ir, scaling.exponent) : null;
+  const k = pre ? scaling.exponent : 0;
+  const valueError = pre ? 0 : timesPow2(scaling.valueError, scaling.exponent) * (b - a);
+  const r = degenerateUnscaled(pre ?? ir, domain, hermitian, loci);
+  if (!r) return null;
+  return {
+    rank: r.rank,
+    eigenvalues: r.eigenvalues.map((e) => ({ re: timesPow2(e.re, k), im: timesPow2(e.im, k), error: (k === 0 ? e.error : errorTimesPow2(e.error, k)) + valueError })),
+  };
+}
+
+function degenerateUnscaled(
+  ir: IrFunction, domain: readonly [number, number], hermitian: boolean, loci: readonly Locus[],
 ): DegenerateResult | null {
   const terms = expandSeparable(ir.root);
   if (!terms || terms.length === 0) return null;

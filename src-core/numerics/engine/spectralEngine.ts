@@ -18,6 +18,7 @@ import { estimateSingularity, type SingularityEstimate } from './singularity';
 import { schurBound, traceIntegral } from './bounds';
 import { sampleEigenfunctions } from './eigenfunctions';
 import { confirmUnknownLoci } from './confirmLoci';
+import { absoluteFloor, scaleKernel, scaleResultBack } from './kernelScale';
 
 export interface SpectralResult {
   readonly spectrum: SpectrumReport | null;
@@ -113,7 +114,22 @@ export function runSpectralEngine(
   compiled?: CompiledKernel,
 ): SpectralResult {
   const start = now();
-  const kernel = compiled ?? compileKernel(ir);
+  const [a, b] = domain;
+  // Kernels near the ends of the double range are analysed as 2^−e·K and their figures scaled back (kernelScale.ts).
+  const scaling = scaleKernel(ir, compiled ?? compileKernel(ir), a, b);
+  const result = runScaled(ir, domain, options, scaling.kernel, absoluteFloor(scaling, a, b), start, token);
+  return scaleResultBack(result, scaling.exponent);
+}
+
+function runScaled(
+  ir: IrFunction,
+  domain: readonly [number, number],
+  options: AnalysisOptions,
+  kernel: CompiledKernel,
+  absFloor: number,
+  start: number,
+  token?: CancellationToken,
+): SpectralResult {
   const [a, b] = domain;
   const raw = findLoci(ir, domain);
   const loci: LociResult = { loci: raw.loci, unknown: confirmUnknownLoci(raw.unknown, domain), capped: raw.capped };
@@ -191,14 +207,17 @@ export function runSpectralEngine(
     lastWork = levelWork(sol);
     spent += lastWork;
     if (levels.length < 2) continue;
-    estimates = estimateAll(levels, count, hsFinite, singularLoci.length > 0);
+    estimates = estimateAll(levels, count, hsFinite, singularLoci.length > 0, absFloor);
     const scale = Math.max(estimates.norm.value, 1e-300);
-    reached = Math.max(estimates.norm.error, ...estimates.eig.map((e) => e.error)) / scale;
+    const worst = Math.max(estimates.norm.error, ...estimates.eig.map((e) => e.error));
+    reached = worst / scale;
     if (reached <= target) break;
+    // Errors at the floor of subnormal kernel values: finer levels cannot lower them.
+    if (absFloor > 0 && worst <= 1.5 * absFloor) break;
   }
   const finest = levels[levels.length - 1];
   if (!finest) return empty('the analysis was stopped before the first discretisation finished');
-  if (!estimates) estimates = estimateAll(levels, count, hsFinite, singularLoci.length > 0);
+  if (!estimates) estimates = estimateAll(levels, count, hsFinite, singularLoci.length > 0, absFloor);
 
   const schur = schurBound(kernel, loci.loci, a, b, token);
   const trace = singularities.some((s) => s.type !== 'none' && s.locus.line.ct === -s.locus.line.cs && s.locus.line.c0 === 0)
@@ -209,7 +228,7 @@ export function runSpectralEngine(
     eigenfunctions: sampleEigenfunctions(finest, a, b, options.gridPoints, Math.min(count, finest.pairs.length)),
     norm,
     hsNorm: estimates.hs,
-    trace: trace ? { value: trace.value, error: trace.error } : null,
+    trace: trace ? { value: trace.value, error: Math.max(trace.error, absFloor) } : null,
     method: describeMethod(finest, levels.length),
     converged: reached <= target,
     elapsedMs: now() - start,
@@ -220,9 +239,10 @@ export function runSpectralEngine(
   };
 }
 
-function estimateAll(levels: readonly LevelSolution[], count: number, hsFinite: boolean, cautious: boolean) {
+/** `absFloor`: the absolute error of every figure from subnormal kernel values (kernelScale.ts), else 0. */
+function estimateAll(levels: readonly LevelSolution[], count: number, hsFinite: boolean, cautious: boolean, absFloor: number) {
   const finest = levels[levels.length - 1];
-  const floor = roundingFloor(finest.sigmaMax, finest.matrix.n);
+  const floor = Math.max(roundingFloor(finest.sigmaMax, finest.matrix.n), absFloor);
   const eig: EigenEstimate[] = finest.pairs.slice(0, count).map((p) => {
     const seq = matchChain(levels, p.re, p.im);
     const e = estimateSequenceError(seq.slice(-3), floor, cautious);
@@ -234,7 +254,7 @@ function estimateAll(levels: readonly LevelSolution[], count: number, hsFinite: 
   let hs: Estimate | null = null;
   if (hsFinite) {
     const hsSeq = levels.slice(-3).map((l) => [Math.sqrt(l.matrix.hsSquared), 0] as [number, number]);
-    const he = estimateSequenceError(hsSeq, 8 * Number.EPSILON * Math.sqrt(finest.matrix.hsSquared), cautious);
+    const he = estimateSequenceError(hsSeq, Math.max(8 * Number.EPSILON * Math.sqrt(finest.matrix.hsSquared), absFloor), cautious);
     hs = { value: Math.sqrt(finest.matrix.hsSquared), error: he.error };
   }
   return { eig, norm, hs };
