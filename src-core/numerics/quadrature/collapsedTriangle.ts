@@ -19,6 +19,14 @@
  * integrand evaluated from (x, y) cannot see distances below ~1e-16; for d^(−α) that caps the accuracy near
  * ε^(1−α). The rule therefore also returns each point's distance to the edge and to v0, computed from the collapsed
  * coordinates without cancellation; integrands that can use them reach full accuracy.
+ *
+ * Power tail (option `tailExponent` α of the edge grading): for d^(−α) with α near 1 the part of the integral below
+ * any distance a black-box integrand can resolve is not small (∫₀^δ d^(−α) dd / ∫₀¹ d^(−α) dd = δ^(1−α): 2.5 % at
+ * δ = 1e-16 for α = 0.9). With the exponent known, the innermost panel [0, δ] is not sampled; its integral is
+ * taken from the next panel's points under the model F(s) = C·s^(−α) (C smooth): ∫₀^δ F = C δ^(1−α)/(1 − α), with
+ * C ≈ F(s_j)·s_j^α averaged over that panel with its Gauss weights. Exact for C constant; for smooth C the
+ * relative error of the tail is O(δ / panel size), the same idea as product integration with a singular weight
+ * (K. E. Atkinson, The Numerical Solution of Integral Equations of the Second Kind, 1997, §4.2).
  */
 import { gaussLegendre } from './gaussLegendre';
 import { DEFAULT_GRADING_LEVELS, DEFAULT_GRADING_RATIO, gradedPanels } from './gradedPanels';
@@ -38,6 +46,11 @@ export interface TriangleGrading {
    * the singularity; pass 0 when the integrand uses edgeDistance / vertexDistance instead of (x, y).
    */
   readonly minDistance?: number;
+  /**
+   * Edge grading only: the integrand behaves like d^(−α) toward the edge with this α ∈ (0, 1); the innermost panel
+   * is replaced by the power tail (see the header). Undefined: the innermost panel is sampled like the others.
+   */
+  readonly tailExponent?: number;
 }
 
 export interface CollapsedTriangleOptions {
@@ -163,21 +176,34 @@ function collapsedRule(
   }
   if (!edge && !vertex) panels.push({ uLo: 0, sLo: 0, length: 1, points: n });
 
-  const total = panels.reduce((sum, p) => sum + p.points, 0);
+  // The power tail: the innermost edge panel (s from 0) is dropped and its integral carried by the next one's points.
+  const alpha = edge?.tailExponent;
+  const tail = alpha !== undefined && alpha > 0 && alpha < 1 ? panels.findIndex((p) => p.sLo === 0 && p.length < 1) : -1;
+  if (alpha !== undefined && !(alpha > 0 && alpha < 1)) {
+    throw new QuadratureInputError(`collapsedTriangleRule: tailExponent must lie in (0, 1), got ${alpha}`);
+  }
+  const carrier = tail >= 0 ? panels.findIndex((p) => p.sLo === panels[tail].length) : -1;
+  const total = panels.reduce((sum, p, i) => sum + (i === tail && carrier >= 0 ? 0 : p.points), 0);
   const u = new Float64Array(total);
   const s = new Float64Array(total);
   const w = new Float64Array(total);
   let k = 0;
-  for (const p of panels) {
+  panels.forEach((p, i) => {
+    if (i === tail && carrier >= 0) return;
     const g = gaussLegendre(p.points);
     for (let j = 0; j < p.points; j++) {
       // Node ξ_j maps to u = uLo + L(1 + ξ)/2 and s = sLo + L(1 − ξ)/2; each is formed from its own panel end.
       u[k] = p.uLo + (p.length * (1 + g.nodes[j])) / 2;
       s[k] = p.sLo + (p.length * (1 - g.nodes[j])) / 2;
       w[k] = (p.length * g.weights[j]) / 2;
+      if (i === carrier) {
+        // ∫₀^δ C s^(−α) ds = C δ^(1−α)/(1 − α), C ≈ Σ_j β_j F(s_j) s_j^α with β_j = g.weights[j]/2 (sum 1).
+        const delta = panels[tail].length;
+        w[k] += (g.weights[j] / 2) * s[k] ** alpha! * delta ** (1 - alpha!) / (1 - alpha!);
+      }
       k++;
     }
-  }
+  });
   return { u, s, w };
 }
 
