@@ -18,7 +18,8 @@ import type { BoundednessClass, BoundednessReport } from '../analysis/types';
 import type { LocalVerdict, LocusGeometry } from '../numerics/engine/singularity';
 import type { ClaimVerdict, CheckContext, Finding } from './types';
 import { holds, undecided } from './types';
-import { findCrossings } from './curves';
+import { findCrossings, findIsolatedZeros } from './curves';
+import type { IrNode } from '../semantics/ir';
 import { PointEvaluator, describePlace, fmt, inSquare } from './sampling';
 
 export interface Singularity {
@@ -107,6 +108,62 @@ function curveVerdicts(g: { type: 'power' | 'log'; exponent: number; error: numb
   return { bounded: v(hi < 1, lo >= 1), hs: v(hi < 0.5, lo >= 0.5) };
 }
 
+/**
+ * A singular argument that vanishes at an isolated point without changing sign (((t − ½)² + (s − ½)²)^(−0.4) at the
+ * centre): |K| ~ r^(−α) measured in eight directions (those inside the square). Read as a point singularity: ∫∫|K|²
+ * is finite for α < 1 and |K| ≤ C·r^(−1) ≤ C′/|t − s| … is dominated by a Hilbert-type kernel for α ≤ 1 (the upper
+ * exponent over all directions); with |K| ≥ c·r^(−α) in a direction, indicator functions of intervals of length ~ ε
+ * at distance ε from the point, in t and in s, give |⟨Kg, f⟩|/(‖f‖‖g‖) ~ ε^(1−α) (unbounded for α > 1), and |K|² is
+ * not integrable for α ≥ 1 (the largest lower exponent over the directions).
+ */
+function isolatedPoint(ev: PointEvaluator, node: IrNode, a: number, b: number): Singularity | null {
+  const L = b - a;
+  for (const p of findIsolatedZeros(node, a, b)) {
+    let hi = 0;
+    let lo = -Infinity;
+    let worst: { type: 'power' | 'log'; exponent: number; error: number } | null = null;
+    for (let k = 0; k < 8; k++) {
+      const th = (k * Math.PI) / 4 + Math.PI / 8;
+      const n: [number, number] = [Math.cos(th), Math.sin(th)];
+      if (!inSquare(p.t + 1e-4 * L * n[0], p.s + 1e-4 * L * n[1], a, b)) continue;
+      const g = oneSided(ev, p.t, p.s, n, a, b);
+      if (!g) continue;
+      if (g.type === 'power') { hi = Math.max(hi, g.exponent + g.error); lo = Math.max(lo, g.exponent - g.error); }
+      if (!worst || (g.type === 'power' && (worst.type === 'log' || g.exponent > worst.exponent))) worst = g;
+    }
+    if (!worst) continue;
+    const v = (h: boolean, f: boolean): LocalVerdict => (h ? 'holds' : f ? 'fails' : 'undecided');
+    const bounded = worst.type === 'log' ? 'holds' : v(hi <= 1, lo > 1);
+    const hs = worst.type === 'log' ? 'holds' : v(hi < 1, lo >= 1);
+    return {
+      where: `the point (t, s) = (${fmt(p.t, 6)}, ${fmt(p.s, 6)}), located numerically`,
+      type: worst.type, exponent: worst.exponent, exponentError: worst.error, point: true, curve: false, geometry: 'point',
+      at: [p.t, p.s], class: classOf(bounded, hs), bounded, hilbertSchmidt: hs,
+    };
+  }
+  return null;
+}
+
+/** The growth of |K| from (t, s) along the unit direction n only. */
+function oneSided(ev: PointEvaluator, t: number, s: number, n: readonly [number, number], a: number, b: number) {
+  const L = b - a;
+  const ys: number[] = [];
+  for (const e of [4, 5, 6, 7]) {
+    const d = L * 10 ** -e;
+    if (!inSquare(t + d * n[0], s + d * n[1], a, b)) return null;
+    ys.push(ev.abs(t + d * n[0], s + d * n[1]));
+  }
+  if (!ys.every(Number.isFinite)) return null;
+  const lg = ys.map((y) => Math.log(Math.max(y, 1e-300)));
+  const slope = (lg[3] - lg[1]) / (2 * Math.LN10);
+  const slope1 = (lg[2] - lg[0]) / (2 * Math.LN10);
+  const d1 = ys[2] - ys[1];
+  const d2 = ys[3] - ys[2];
+  if (d1 > 0 && Math.abs(d2 - d1) <= 0.05 * Math.abs(d1) && slope < 0.3) return { type: 'log' as const, exponent: 0, error: 0 };
+  if (slope > 0.03) return { type: 'power' as const, exponent: slope, error: Math.max(3 * Math.abs(slope - slope1), 0.01) };
+  return null;
+}
+
 export function measureBoundedness(ctx: CheckContext): BoundednessFacts {
   const [a, b] = ctx.domain;
   const found: Singularity[] = [];
@@ -138,6 +195,7 @@ export function measureBoundedness(ctx: CheckContext): BoundednessFacts {
         };
       }
     }
+    if (!worst) worst = isolatedPoint(ev, u.node, a, b);
     if (worst) found.push(worst);
   }
   found.sort((x, y) => classRank[y.class] - classRank[x.class] || y.exponent - x.exponent);

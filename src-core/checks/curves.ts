@@ -89,3 +89,46 @@ export function findCrossings(zeroOf: IrNode, a: number, b: number, max = 6): Cu
   const step = found.length / max;
   return Array.from({ length: max }, (_, k) => found[Math.floor((k + 0.5) * step)]);
 }
+
+/**
+ * Isolated zeros of g on the square where g does not change sign (an interior point such as (1/2, 1/2) of
+ * (t − 1/2)² + (s − 1/2)², which no sign change reveals): the smallest |g| on the 33 × 33 grid and on the diagonal,
+ * refined by shrinking a 5 × 5 pattern around the best point 40 times; kept when |g| there is below 10⁻¹² of max |g|.
+ */
+export function findIsolatedZeros(zeroOf: IrNode, a: number, b: number): { t: number; s: number }[] {
+  const node = signChangingPart(zeroOf);
+  const slots = slotCountOf(node);
+  const complex = mayBeComplex(node, slots);
+  const g = compileKernel({ root: node, arity: 2, slotCount: slots, complex });
+  const tb = new Float64Array(1);
+  const sb = new Float64Array(1);
+  const re = new Float64Array(1);
+  const im = new Float64Array(1);
+  const at = (t: number, s: number) => {
+    tb[0] = Math.min(b, Math.max(a, t)); sb[0] = Math.min(b, Math.max(a, s));
+    g.evaluateColumns([tb, sb], re, complex ? im : null);
+    return Math.hypot(re[0], complex ? im[0] : 0);
+  };
+  const m = 33;
+  const h = (b - a) / (m - 1);
+  let best = { t: a, s: a, v: Infinity };
+  let scale = 0;
+  const consider = (t: number, s: number) => {
+    const v = at(t, s);
+    if (!Number.isFinite(v)) return;
+    scale = Math.max(scale, v);
+    if (v < best.v) best = { t, s, v };
+  };
+  for (let i = 0; i < m; i++) for (let j = 0; j < m; j++) consider(a + i * h, a + j * h);
+  for (let i = 0; i < 4 * m; i++) { const x = a + ((b - a) * (i + 0.5)) / (4 * m); consider(x, x); }
+  if (!(scale > 0) || !Number.isFinite(best.v)) return [];
+  let step = h;
+  for (let it = 0; it < 40; it++) {
+    const centre = best;
+    for (let i = -2; i <= 2; i++) for (let j = -2; j <= 2; j++) consider(centre.t + (i * step) / 2, centre.s + (j * step) / 2);
+    step /= 2;
+  }
+  const t = Math.min(b, Math.max(a, best.t));
+  const s = Math.min(b, Math.max(a, best.s));
+  return at(t, s) <= 1e-12 * scale ? [{ t, s }] : [];
+}
