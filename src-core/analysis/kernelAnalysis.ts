@@ -9,7 +9,7 @@ import type { CancellationToken } from '../util/cancellation';
 import { forgetHashes } from '../util/hashCache';
 import { runSpectralEngine, type SpectralResult } from '../numerics/engine/spectralEngine';
 import { crossCheckSeparable } from '../numerics/engine/degenerate';
-import { describeTriangular, detectTriangularSupport } from '../numerics/engine/triangular';
+import { describeTriangular, detectTriangularSupport, triangularOnGrid } from '../numerics/engine/triangular';
 import { compileKernel } from '../semantics/evaluator';
 import type { IrFunction } from '../semantics/ir';
 import type { AnalysisOptions, SpectrumReport } from './types';
@@ -99,6 +99,12 @@ function compute(k: KernelSymbol, options: AnalysisOptions, token?: Cancellation
   if (volterra) {
     spectrum = volterra.spectrum;
     reachedFigure = volterra.reached;
+  } else {
+    const unproven = unprovenTriangular(ir, domain, result, spectrum);
+    if (unproven) {
+      spectrum = unproven.spectrum;
+      reachedFigure = Math.max(reachedFigure, unproven.reached);
+    }
   }
   if (!spectrum.converged) {
     const reached = reachedFigure.toExponential(1);
@@ -111,22 +117,44 @@ function compute(k: KernelSymbol, options: AnalysisOptions, token?: Cancellation
 }
 
 /**
- * A Volterra-type kernel (triangular support, see triangular.ts) with a square-integrable kernel is
- * quasinilpotent: the Galerkin eigenvalues are spurious, so none is reported, and the accuracy reached is that of
- * the norm alone. Null for every other kernel (or when a singularity makes |K|² not integrable: the argument needs it).
+ * A Volterra-type kernel (triangular support, see triangular.ts) that is bounded, or singular only on the diagonal
+ * and weakly so (|K| ≤ C|t − s|^(−α), α < 1), is quasinilpotent: the Galerkin eigenvalues are spurious, so none is
+ * reported, and the accuracy reached is that of the norm alone. (Bounded: ‖Tⁿ‖ ≤ Mⁿ(b − a)ⁿ/n!; weakly singular:
+ * R. Kress, Linear Integral Equations, 1989, ch. 3 and 9 on Volterra and Abel equations, from memory.) A singularity
+ * off the diagonal voids the argument: `t > s ? 1/t : 0` is the Hardy averaging operator, whose spectrum is a disk.
+ * Null for every other kernel.
  */
 function quasinilpotentSpectrum(ir: IrFunction, domain: readonly [number, number], result: SpectralResult, spectrum: SpectrumReport) {
-  if (result.hermitian || !result.singularities.every((s) => s.squareIntegrable)) return null;
+  if (result.hermitian || result.loci.unknown.length > 0) return null;
+  const onDiagonal = (l: { line: { ct: number; cs: number; c0: number } }) => l.line.ct !== 0 && l.line.ct + l.line.cs === 0 && l.line.c0 === 0;
+  const singular = result.loci.loci.filter((l) => l.kind === 'singular');
+  if (!singular.every(onDiagonal) || singular.length !== result.singularities.length) return null;
+  if (!result.singularities.every((s) => !s.point && s.integrable && (s.type !== 'power' || s.exponent + (s.exponentError ?? 0) < 1))) return null;
   const support = detectTriangularSupport(ir, domain, () => compileKernel(ir));
   if (!support) return null;
   const norm = spectrum.norm;
   const reached = norm && norm.value > 0 ? norm.error / norm.value : norm ? 0 : Infinity;
-  const reason = `${describeTriangular(support.side)} (a Volterra operator, checked at ${support.checkedPoints} points) and |K|² is integrable, so T is quasinilpotent: σ(T) = {0}, no nonzero eigenvalue, spectral radius 0`;
+  const reason = `${describeTriangular(support.side)} (a Volterra operator, checked at ${support.checkedPoints} points)${singular.length > 0 ? ', weakly singular on the diagonal only' : ' with a bounded kernel'}, so T is quasinilpotent: σ(T) = {0}, no nonzero eigenvalue, spectral radius 0`;
   const next: SpectrumReport = {
     ...spectrum, eigenvalues: [], eigenfunctions: null, converged: reached <= result.target,
     quasinilpotent: { side: support.side, reason },
   };
   return { spectrum: next, reached };
+}
+
+/**
+ * A non-Hermitian kernel that vanishes at every grid point of one triangle although its expression does not show
+ * it (`floor(t - s + 1) * cos(t - s)`): its Galerkin eigenvalues may be the wandering ones of a Volterra operator,
+ * whose true spectrum is {0}, so no eigenvalue is taken as converged: each error is at least its modulus (it covers
+ * 0 as well as the value) and the accuracy note says how far the figures are from settled.
+ */
+function unprovenTriangular(ir: IrFunction, domain: readonly [number, number], result: SpectralResult, spectrum: SpectrumReport) {
+  if (result.hermitian || spectrum.eigenvalues.length === 0) return null;
+  if (!triangularOnGrid(compileKernel(ir), domain)) return null;
+  const eigenvalues = spectrum.eigenvalues.map((e) => ({ ...e, error: Math.max(e.error, Math.hypot(e.re, e.im)) }));
+  const normValue = spectrum.norm?.value ?? 0;
+  const reached = normValue > 0 ? Math.max(...eigenvalues.map((e) => e.error)) / normValue : Infinity;
+  return { spectrum: { ...spectrum, eigenvalues, converged: false }, reached };
 }
 
 export function analyzeKernelNumerics(k: KernelSymbol, options: AnalysisOptions, token?: CancellationToken): KernelNumerics | null {

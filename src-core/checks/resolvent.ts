@@ -107,11 +107,6 @@ export function measureResolvent(
   const generic = measureFromEigenvalues(ctx, mu, hermitian, bounded);
   if (generic.report.inResolventSet !== null && !(ctx.spectrum?.quasinilpotent && generic.report.inResolventSet)) return generic;
   if (!ctx.spectrum || bounded.report.class === 'unbounded' || (mu.re === 0 && mu.im === 0)) return generic;
-  // The quasinilpotent argument needs |K|² integrable; a Volterra-type kernel the boundedness check finds not
-  // Hilbert–Schmidt is left to the eigenvalues (undecided when they do not settle it).
-  if (ctx.spectrum.quasinilpotent && bounded.report.class !== 'hilbert-schmidt') {
-    return { ...generic, report: { ...generic.report, inResolventSet: null }, summary: 'K vanishes on one side of the diagonal but |K|² may not be integrable, so σ(T) = {0} is not shown' };
-  }
   return enclosure(ctx, mu, hermitian, positive ?? positivityReportOf(ctx.engine)) ?? generic;
 }
 

@@ -106,6 +106,37 @@ describe('Volterra-type kernels: no nonzero eigenvalues, the norm with an error 
     });
   }
 
+  // floor(t − s + 1) is 1 for t ≥ s and 0 for t < s on [0, 1]², so this is the vcos kernel in a form the
+  // expression reader does not see through: its true spectrum is {0} and its norm that of vcos.
+  it('a triangular kernel seen only on the grid: every eigenvalue error covers 0, the accuracy note says so', () => {
+    const r = analyzeText('kernel k(t, s) on [0, 1] = floor(t - s + 1) * cos(t - s)\n');
+    const s = r.kernels[0].spectrum!;
+    expect(s.quasinilpotent).toBeUndefined();
+    expect(s.converged).toBe(false);
+    for (const e of s.eigenvalues) expect(Math.hypot(e.re, e.im)).toBeLessThanOrEqual(e.error);
+    expect(r.diagnostics.some((d) => d.code === 'KW401')).toBe(true);
+    expect(Math.abs(s.norm!.value - data.cases.vcos.norm)).toBeLessThanOrEqual(s.norm!.error + data.cases.vcos.error);
+  });
+
+  // The Riemann–Liouville integral of order 0.7, up to a factor: weakly singular on the diagonal only, so
+  // quasinilpotent (R. Kress, Linear Integral Equations, 1989, on Abel's equation; from memory).
+  it('a Volterra kernel weakly singular on the diagonal is quasinilpotent too', () => {
+    const r = analyzeText('kernel k(t, s) on [0, 1] = t > s ? (t - s)^(-0.3) : 0\n');
+    expect(r.kernels[0].spectrum!.quasinilpotent).toBeDefined();
+    expect(r.kernels[0].spectrum!.eigenvalues).toEqual([]);
+  });
+
+  // (Tf)(t) = (1/t)∫_0^t f is Hardy's averaging operator: bounded, not compact, its spectrum is not {0} (common
+  // practice; G. H. Hardy, J. E. Littlewood & G. Pólya, Inequalities, 1934, §9.8 for the norm 2 on L²(0, ∞)).
+  it('a triangular kernel singular off the diagonal (Hardy’s operator) is not called quasinilpotent', () => {
+    const r = analyzeText('kernel k(t, s) on [0, 1] = t > s ? 1 / t : 0\n');
+    const s = r.kernels[0].spectrum;
+    if (s) {
+      expect(s.quasinilpotent).toBeUndefined();
+      for (const e of s.eigenvalues) expect(Math.hypot(e.re, e.im)).toBeLessThanOrEqual(e.error);
+    }
+  });
+
   it('a kernel with a comparison that does not give triangular support keeps its eigenvalues', () => {
     const r = analyzeText('kernel k(t, s) on [0, 1] = t > s ? 1 : 0.5\n');
     expect(r.kernels[0].spectrum!.quasinilpotent).toBeUndefined();

@@ -283,31 +283,50 @@ export function detectTriangularSupport(
   const side = triangularFromExpression(ir, domain);
   if (!side) return null;
   const kernel = typeof compiled === 'function' ? compiled() : compiled;
+  const grid = sampleTriangles(kernel, domain);
+  const zero = side === 'lower' ? grid.above : grid.below;
+  const other = side === 'lower' ? grid.below : grid.above;
+  return zero.zero && other.nonzero ? { side, checkedPoints: zero.points } : null;
+}
+
+/**
+ * Triangular support seen on the Gauss grid only (K exactly 0 at every grid point of one triangle, nonzero in the
+ * other) for a kernel whose expression does not show it: not a proof that σ(T) = {0}, but a sign that Galerkin
+ * eigenvalues may wander between levels as they do for Volterra operators.
+ */
+export function triangularOnGrid(kernel: CompiledKernel, domain: readonly [number, number]): TriangularSide | null {
+  const [a, b] = domain;
+  if (!(a < b) || !Number.isFinite(a) || !Number.isFinite(b)) return null;
+  const g = sampleTriangles(kernel, domain);
+  if (g.above.zero && g.below.nonzero) return 'lower';
+  if (g.below.zero && g.above.nonzero) return 'upper';
+  return null;
+}
+
+interface TriangleSample { zero: boolean; nonzero: boolean; points: number }
+
+/** K on a Gauss grid, off the diagonal: is it exactly 0 on each triangle, and nonzero (finite) somewhere? */
+function sampleTriangles(kernel: CompiledKernel, domain: readonly [number, number]): { above: TriangleSample; below: TriangleSample } {
   const [a, b] = domain;
   const nodes = mapRule(gaussLegendre(gridPoints), a, b).nodes;
   const n = nodes.length;
   const re = new Float64Array(n * n);
   const im = kernel.complex ? new Float64Array(n * n) : null;
   kernel.evaluateGrid(nodes, nodes, re, im);
-  let checked = 0;
-  let nonzero = false;
+  const above: TriangleSample = { zero: true, nonzero: false, points: 0 };
+  const below: TriangleSample = { zero: true, nonzero: false, points: 0 };
   for (let i = 0; i < n; i++) {
     for (let j = 0; j < n; j++) {
       if (i === j) continue;
-      const t = nodes[i];
-      const s = nodes[j];
-      const vanishing = side === 'lower' ? s > t : s < t;
+      const part = nodes[j] > nodes[i] ? above : below; // s > t: above the diagonal
       const x = re[i * n + j];
       const y = im ? im[i * n + j] : 0;
-      if (vanishing) {
-        if (x !== 0 || y !== 0) return null;
-        checked++;
-      } else if (Number.isFinite(x) && Number.isFinite(y) && (x !== 0 || y !== 0)) {
-        nonzero = true;
-      }
+      part.points++;
+      if (x !== 0 || y !== 0) part.zero = false;
+      if (Number.isFinite(x) && Number.isFinite(y) && (x !== 0 || y !== 0)) part.nonzero = true;
     }
   }
-  return nonzero ? { side, checkedPoints: checked } : null;
+  return { above, below };
 }
 
 /** Words for the support: “K(t, s) = 0 for s > t”. */
