@@ -30,7 +30,7 @@ import type { SymmetryFacts } from './symmetry';
 import type { ClaimVerdict, CheckContext, Finding } from './types';
 import { holds, undecided } from './types';
 import { coarserHermitianEigenvalues, comparisonDrop, finestHermitianEigenvalues, subTrace } from './galerkin';
-import { fmt, fmtEstimate, gaussGrid, kernelScale, sampleGrid } from './sampling';
+import { fmt, fmtEstimate, fmtProduct, gaussGrid, kernelScale, sampleGrid } from './sampling';
 
 export interface PositivityFacts {
   readonly report: PositivityReport;
@@ -72,7 +72,10 @@ function inspectGrid(ctx: CheckContext, continuous: boolean): { certificate: Cer
     }
   }
   if (certificate) return { certificate, covarianceShape: false };
-  let bestMinor = rel * scale * scale;
+  // Squares relative to the power of two nearest the largest value (exact), so that they neither overflow
+  // (1e154·(t + s)) nor underflow (1e-200·K); figures are written as products of the scale and those squares.
+  const unit = 2 ** Math.round(Math.log2(scale));
+  let bestMinor = rel * (scale / unit) ** 2;
   for (let i = 0; i < n; i++) {
     for (let j = 0; j < n; j++) {
       const k = i * n + j;
@@ -80,14 +83,15 @@ function inspectGrid(ctx: CheckContext, continuous: boolean): { certificate: Cer
       const im = v.im ? v.im[k] : 0;
       if (!Number.isFinite(re) || !Number.isFinite(im)) continue;
       if (re < -1e-12 * scale) covarianceShape = false;
-      const excess = re * re + im * im - diag[i] * diag[j];
-      if (excess > 1e-9 * scale * scale) covarianceShape = false;
+      const [ur, ui, di, dj] = [re / unit, im / unit, diag[i] / unit, diag[j] / unit];
+      const excess = ur * ur + ui * ui - di * dj;
+      if (excess > 1e-9 * (scale / unit) ** 2) covarianceShape = false;
       if (continuous && j > i && excess > bestMinor) {
         bestMinor = excess;
-        const kk = Math.hypot(re, im) ** 2;
+        const kk = Math.hypot(ur, ui) ** 2;
         certificate = {
-          t: x[i], s: x[j], kind: 'minor', margin: excess,
-          text: `at t = ${fmt(x[i], 4)}, s = ${fmt(x[j], 4)}, |K(t, s)|² = ${fmt(kk, 4)} exceeds K(t, t)·K(s, s) = ${fmt(diag[i] * diag[j], 4)}`,
+          t: x[i], s: x[j], kind: 'minor', margin: excess * unit * unit,
+          text: `at t = ${fmt(x[i], 4)}, s = ${fmt(x[j], 4)}, |K(t, s)|² = ${fmtProduct([kk, unit, unit], 4)} exceeds K(t, t)·K(s, s) = ${fmtProduct([di * dj, unit, unit], 4)}`,
         };
       }
     }

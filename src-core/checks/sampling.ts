@@ -130,6 +130,22 @@ export function fmt(x: number, digits = 6): string {
   return exponent === undefined ? trimmed : `${trimmed}e${exponent.replace('+', '')}`;
 }
 
+/**
+ * The product of the factors with `digits` significant digits, also when it lies beyond the double range (a
+ * square of 1e154 is written 1.8e308 rather than ∞): exponents are added in base 10.
+ */
+export function fmtProduct(factors: readonly number[], digits = 6): string {
+  const p = factors.reduce((x, y) => x * y, 1);
+  if (Number.isFinite(p) && (p === 0 ? factors.some((f) => f === 0) : Math.abs(p) >= 2 ** -1022)) return fmt(p, digits);
+  if (factors.some((f) => !Number.isFinite(f))) return fmt(p, digits);
+  const negative = factors.filter((f) => f < 0).length % 2 === 1;
+  const log = factors.reduce((acc, f) => acc + Math.log10(Math.abs(f)), 0);
+  let exponent = Math.floor(log);
+  let mantissa = Number((10 ** (log - exponent)).toPrecision(digits));
+  if (mantissa >= 10) { mantissa /= 10; exponent += 1; }
+  return `${negative ? '-' : ''}${fmt(mantissa, digits)}e${exponent}`;
+}
+
 /** `value ± error`, the value to the digits the error allows (plus a guard digit), the error to two digits. */
 export function fmtEstimate(value: number, error: number): string {
   if (!Number.isFinite(error)) return `${fmt(value, 4)} ± ?`;

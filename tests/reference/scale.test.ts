@@ -113,6 +113,15 @@ describe('claims on extreme kernels', () => {
     noNaN(k);
   });
 
+  // t + s is not positive: |K(t, s)|² = (t + s)² > 4ts = K(t, t)·K(s, s) off the diagonal (common practice). At
+  // 1e154 the square exceeds the double range; the evidence must still print it as a number.
+  it('1e154·(t + s): the 2 × 2 minor evidence prints finite figures', () => {
+    const { report } = analyse('1e154 * (t + s)');
+    const d = report.diagnostics.find((x) => x.code === 'KW531');
+    expect(d?.message).toMatch(/\|K\(t, s\)\|² = [0-9.]+e30[0-9]/);
+    expect(d?.message).not.toMatch(/∞|NaN/);
+  });
+
   // exp(t·s − 740) is positive (e^{ts} = Σ (ts)^n/n!, a sum of positive rank-one kernels; common practice) but its
   // values are subnormal: holds or undecided with a reason, never a failure.
   it('exp(t·s − 740): expect positive is never refuted', () => {

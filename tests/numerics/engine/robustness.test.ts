@@ -35,6 +35,29 @@ describe('huge but finite kernels', () => {
   });
 });
 
+describe('scaled analysis of extreme kernels (figures scaled back by a power of two)', () => {
+  // exp(−|t − s|) on [0, 1]: trace ∫ K(t, t) dt = 1 (common practice); ‖K‖_HS² = 2∫₀¹(1 − u)e^(−2u) du
+  // = (1 + e^(−2))/2 (closed form, common practice).
+  const hs = Math.sqrt((1 + Math.exp(-2)) / 2);
+  for (const c of [1e250, 1e-250, 1e300, 1e-300]) {
+    it(`${c}·exp(−|t − s|): finite trace and Hilbert–Schmidt norm that cover the closed forms`, () => {
+      const s = analyse(`${c} * exp(-abs(t - s))`).kernels[0].spectrum!;
+      expect(Math.abs(s.trace!.value - c)).toBeLessThanOrEqual(s.trace!.error + c * 1e-15);
+      expect(Math.abs(s.hsNorm!.value - c * hs)).toBeLessThanOrEqual(s.hsNorm!.error + c * 1e-15);
+    });
+  }
+
+  // A subnormal kernel without a constant factor: its errors carry the absolute floor of subnormal rounding, so
+  // they cover the value (here only known to a few digits), and the ladder stops once at that floor.
+  it('exp(−740)·e^(t s) in one expression: errors cover λ₁ to the few digits it has', () => {
+    const k = analyse('exp(t * s - 740)').kernels[0];
+    const l1 = k.spectrum!.eigenvalues[0];
+    // λ₁ = 5.66749e-322 by mpmath Gauss–Legendre Nyström at 24 and 32 points (tests/reference/scripts/scale.py).
+    expect(Math.abs(l1.re - 5.667491409978441e-322)).toBeLessThanOrEqual(l1.error + 2 ** -1074);
+    expect(l1.error).toBeGreaterThan(0);
+  });
+});
+
 describe('floor of a huge argument', () => {
   // Every double of magnitude at least 2^52 is an integer (IEEE 754 binary64, common practice): on [0, 1],
   // s + 1e17 rounds to 1e17 or the next double, so the kernel is (numerically) the constant 1e17, rank one,
