@@ -31,7 +31,8 @@ export function onSingularLocus(k: KernelSymbol): (t: number, s: number) => bool
   const { a, b } = k.domain;
   const loci = findLoci(k.ir, [a, b]);
   const scale = Math.max(1, Math.abs(a), Math.abs(b));
-  const lines = loci.loci.filter((l) => l.kind === 'singular').map((l) => l.line);
+  // A removable singularity (sin(t − s)/(t − s)) is 0/0 on its line: NaN there is not a fault of the kernel.
+  const lines = loci.loci.filter((l) => l.kind === 'singular' || l.removable).map((l) => l.line);
   const curves = loci.unknown.filter((u) => u.kind === 'singular' && u.node.op !== 'const').map((u) => {
     const slots = slotCountOf(u.node);
     return compileKernel({ root: u.node, arity: 2, slotCount: slots, complex: mayBeComplex(u.node, slots) });
