@@ -18,6 +18,7 @@ import { estimateSingularity, type SingularityEstimate } from './singularity';
 import { schurBound, traceIntegral } from './bounds';
 import { sampleEigenfunctions } from './eigenfunctions';
 import { confirmUnknownLoci } from './confirmLoci';
+import { withPowerTails } from './pairRule';
 import { absoluteFloor, scaleKernel, scaleResultBack } from './kernelScale';
 
 export interface SpectralResult {
@@ -167,7 +168,7 @@ function runScaled(
   if (ladder.length === 0) {
     return empty(`K is singular along ${singularLoci.length} lines, more than a discretisation within the resolution cap of ${options.maxResolution} can follow`);
   }
-  const oblique: Locus[] = followed.filter((l) => l.line.ct !== 0 && l.line.cs !== 0);
+  const oblique = withPowerTails(followed.filter((l) => l.line.ct !== 0 && l.line.cs !== 0), singularities);
   const count = options.eigenCount;
   const levels: LevelSolution[] = [];
   let lastWork = 0;
