@@ -121,6 +121,12 @@ export interface BoundednessReport {
   readonly exponent: number | null;
   /** Where the worst singularity lies (“the diagonal t = s”, “the corner (0, 0)”), or null. */
   readonly where: string | null;
+  /**
+   * Set when the class is not settled: which property is open (`bounded`, or only `hilbert-schmidt` while the
+   * operator is bounded) and why (an exponent whose error interval contains the threshold). The class then says
+   * what is known: 'bounded' with `undecided.property` 'bounded' means boundedness itself is open.
+   */
+  readonly undecided?: { readonly property: 'bounded' | 'hilbert-schmidt'; readonly reason: string };
 }
 
 export type ContinuityClass = 'continuous' | 'jump' | 'singular';

@@ -225,6 +225,8 @@ export function measureBoundedness(ctx: CheckContext): BoundednessFacts {
       class: cls,
       exponent: worst ? worst.exponent : null,
       where: worst ? worst.where : null,
+      ...(undecided.bounded ? { undecided: { property: 'bounded' as const, reason: undecided.bounded } }
+        : undecided.hilbertSchmidt ? { undecided: { property: 'hilbert-schmidt' as const, reason: undecided.hilbertSchmidt } } : {}),
     },
     singularities: found,
     reason,

@@ -144,8 +144,10 @@ function undeclared(facts: KernelFacts, declared: ReadonlySet<ExpectationName>):
   if (facts.symmetry.report.holds) holding.push('hermitian');
   if (facts.positivity.report.holds === true) holding.push('positive');
   if (facts.continuity.report.class === 'continuous' && facts.boundedness.report.class !== 'unbounded') holding.push('continuous');
-  if (facts.boundedness.report.class === 'hilbert-schmidt') holding.push('hilbert-schmidt');
-  if (facts.boundedness.report.class !== 'unbounded') holding.push('bounded');
+  // Only what is decided is suggested: an exponent whose error interval straddles a threshold leaves the class open.
+  const open = facts.boundedness.undecided;
+  if (facts.boundedness.report.class === 'hilbert-schmidt' && !open.hilbertSchmidt) holding.push('hilbert-schmidt');
+  if (facts.boundedness.report.class !== 'unbounded' && !open.bounded) holding.push('bounded');
   const present = new Set<ExpectationName>([...declared, ...holding.filter((c) => !declared.has(c))]);
   const implied = (c: ExpectationName) =>
     (c === 'hermitian' && present.has('positive'))

@@ -32,7 +32,10 @@ export interface CheckResults {
   readonly resolvent: readonly ResolventReport[];
   /** The spectrum to report: null when the operator turned out to be unbounded. */
   readonly spectrum: SpectrumReport | null;
-  /** True when the operator is unbounded (the engine's “no spectrum” note is then replaced by KW510 or a claim). */
+  /**
+   * True when the operator is unbounded, or boundedness is undecided: the engine's notes about figures not shown
+   * are then dropped (KW510, a failed claim or the undecided boundedness says why).
+   */
   readonly unbounded: boolean;
   readonly diagnostics: Diagnostic[];
 }
@@ -111,8 +114,9 @@ export function runChecks(
     positive: facts.positivity.report,
     effectiveRank: facts.positivity.effectiveRank,
     resolvent: judged.resolvent,
-    spectrum: unbounded ? null : spectrum,
-    unbounded,
+    // No figures for an operator that may be unbounded either: a norm of its finite sections would mean nothing.
+    spectrum: unbounded || facts.boundedness.dropSpectrum ? null : spectrum,
+    unbounded: unbounded || facts.boundedness.dropSpectrum,
     diagnostics: judged.diagnostics,
   };
 }

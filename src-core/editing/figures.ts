@@ -52,7 +52,9 @@ export function propertyMarks(report: KernelReport): PropertyMark[] {
   const b = report.boundedness;
   if (b) {
     const growth = b.exponent !== null && b.exponent !== undefined ? `|K| ~ d^(−${formatNumber(b.exponent, 3)})${b.where ? ` toward ${b.where}` : ''}` : null;
-    if (b.class === 'hilbert-schmidt') out.push(withFigure('Hilbert–Schmidt', true, growth));
+    if (b.undecided?.property === 'bounded') out.push(withFigure('bounded', null, b.undecided.reason));
+    else if (b.undecided) out.push(withFigure('Hilbert–Schmidt', null, b.undecided.reason));
+    else if (b.class === 'hilbert-schmidt') out.push(withFigure('Hilbert–Schmidt', true, growth));
     else if (b.class === 'bounded') out.push(withFigure('bounded', true, growth ? `not Hilbert–Schmidt: ${growth}` : 'not Hilbert–Schmidt'));
     else out.push(withFigure('bounded', false, growth));
   }

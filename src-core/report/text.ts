@@ -105,7 +105,11 @@ export function formatProperties(kernel: KernelReport): string {
   const c = kernel.continuity;
   if (c) parts.push(c.class === 'continuous' ? 'continuous' : c.class === 'jump' ? `jumps across ${c.where ?? 'a curve'}` : `singular on ${c.where ?? 'a set'}`);
   const b = kernel.boundedness;
-  if (b) parts.push(b.class === 'hilbert-schmidt' ? 'Hilbert–Schmidt' : b.class === 'bounded' ? 'bounded, not Hilbert–Schmidt' : 'unbounded');
+  if (b) {
+    parts.push(b.undecided?.property === 'bounded' ? 'boundedness undecided'
+      : b.undecided ? 'bounded, Hilbert–Schmidt undecided'
+        : b.class === 'hilbert-schmidt' ? 'Hilbert–Schmidt' : b.class === 'bounded' ? 'bounded, not Hilbert–Schmidt' : 'unbounded');
+  }
   const r = kernel.effectiveRank;
   if (r) {
     const show = (x: number | null) => (x === null ? `>${r.resolvedModes}` : String(x));
@@ -120,9 +124,14 @@ export function formatProperties(kernel: KernelReport): string {
  */
 export function formatKernelLine(path: string, kernel: KernelReport, index: LineIndex): string | null {
   const spectrum = kernel.spectrum;
-  if (!spectrum) return null;
   const line = index.position(kernel.range.start).line + 1;
   const domain = kernel.domain ? ` on [${formatNumber(kernel.domain[0], maxDigits)}, ${formatNumber(kernel.domain[1], maxDigits)}]` : '';
+  if (!spectrum) {
+    // No figures because boundedness is open: say so, with what is known (an unbounded kernel has its KW510).
+    const open = kernel.boundedness?.undecided;
+    if (open?.property !== 'bounded') return null;
+    return `${path}:${line}: kernel ${kernel.name}${domain}: no figures, boundedness undecided (${open.reason}); ${formatProperties(kernel)}`;
+  }
   const notes = [spectrum.method, ...(spectrum.converged ? [] : ['accuracy target not reached'])].filter((n) => n.length > 0);
   const tail = notes.length > 0 ? ` (${notes.join('; ')})` : '';
   const properties = formatProperties(kernel);
