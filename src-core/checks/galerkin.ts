@@ -51,7 +51,7 @@ export function coarserHermitianEigenvalues(level: LevelSolution): Float64Array 
   const known = subEigenCache.get(level);
   if (known) return known;
   const drop = comparisonDrop(level);
-  if (drop === 0) return null;
+  if (drop === 0 || !finiteEntries(level)) return null;
   const s = submatrix(level, subBasis(level, level.matrix.discretisation.degree - drop));
   // Solved scaled by a power of two (exact) so that the largest entry is about 1: the solvers square entries, which
   // overflow for a kernel of size 1e250 and underflow for 1e-250; the values are scaled back.
@@ -105,6 +105,24 @@ export function subTrace(level: LevelSolution, maxDegree: number): number {
 }
 
 const singularCache = new WeakMap<LevelSolution, Float64Array>();
+
+const finiteCache = new WeakMap<LevelSolution, boolean>();
+
+/**
+ * Whether every entry of the level's matrix is finite. A kernel analysed scaled by a power of two (values near
+ * 1e308) gets its figures scaled back, and its matrix entries may then overflow: checks that read entries say
+ * nothing (undecided) instead of handing infinities to the solvers.
+ */
+export function finiteEntries(level: LevelSolution): boolean {
+  let known = finiteCache.get(level);
+  if (known === undefined) {
+    const { re, im } = level.matrix;
+    known = true;
+    for (let i = 0; i < re.length && known; i++) if (!Number.isFinite(re[i]) || (im && !Number.isFinite(im[i]))) known = false;
+    finiteCache.set(level, known);
+  }
+  return known;
+}
 
 /** Singular values of A, descending. */
 export function galerkinSingularValues(level: LevelSolution): Float64Array {

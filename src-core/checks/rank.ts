@@ -13,7 +13,7 @@
  */
 import type { ClaimVerdict, CheckContext } from './types';
 import { holds, undecided } from './types';
-import { galerkinSingularValues } from './galerkin';
+import { finiteEntries, galerkinSingularValues } from './galerkin';
 import { fmt } from './sampling';
 
 export interface RankFacts {
@@ -30,7 +30,7 @@ export interface RankFacts {
 
 export function measureRank(ctx: CheckContext): RankFacts | null {
   const finest = ctx.engine.finest;
-  if (!finest || !ctx.spectrum) return null;
+  if (!finest || !ctx.spectrum || !finiteEntries(finest)) return null;
   const sv = galerkinSingularValues(finest);
   const n = sv.length;
   const s1 = sv[0] ?? 0;

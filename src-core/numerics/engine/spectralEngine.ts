@@ -119,7 +119,14 @@ export function runSpectralEngine(
   // Kernels near the ends of the double range are analysed as 2^−e·K and their figures scaled back (kernelScale.ts).
   const scaling = scaleKernel(ir, compiled ?? compileKernel(ir), a, b);
   const result = runScaled(ir, domain, options, scaling.kernel, absoluteFloor(scaling, a, b), start, token);
-  return scaleResultBack(result, scaling.exponent);
+  const back = scaleResultBack(result, scaling.exponent);
+  const sp = back.spectrum;
+  if (sp && (!Number.isFinite(sp.norm?.value ?? 0) || sp.eigenvalues.some((e) => !Number.isFinite(e.re) || !Number.isFinite(e.im)))) {
+    // The figures themselves are beyond the double range (K = 1e308 on [−1, 1] has λ₁ = 2e308): none is better
+    // than an infinite one.
+    return { ...back, spectrum: null, reason: 'the operator’s norm is beyond the double range (its eigenvalues overflow)' };
+  }
+  return back;
 }
 
 function runScaled(

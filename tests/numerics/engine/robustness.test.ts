@@ -158,3 +158,15 @@ describe('a domain so wide that the Galerkin entries overflow', () => {
     expect(Math.abs(h.defect - Math.SQRT2)).toBeLessThanOrEqual(Math.max(h.defectError, 1e-12));
   });
 });
+
+describe('figures beyond the double range', () => {
+  // K = 1e308 on [−1, 1]: rank one, λ₁ = 1e308 · 2 = 2e308 (common practice: a constant c on [a, b] has
+  // λ₁ = c(b − a)), which no double holds. Found by the fuzz run: the rank check handed the overflowing
+  // Galerkin entries to the SVD, which threw.
+  it('1e308 on [-1, 1]: no spectrum, said why, no internal error', () => {
+    const r = analyzeText('domain [-1, 1]\nkernel k(t, s) = 1e308\n');
+    expect(r.kernels[0].spectrum).toBeNull();
+    expect(r.diagnostics.find((d) => d.code === 'KW402')?.message).toMatch(/beyond the double range/);
+    expect(r.diagnostics.some((d) => /NaN|Infinity|∞/.test(d.message))).toBe(false);
+  });
+});
