@@ -17,7 +17,7 @@ import type { IrFunction, IrNode } from '../../semantics/ir';
 import { compileKernel, type CompiledKernel } from '../../semantics/evaluator';
 import { gaussLegendre, mapRule } from '../quadrature';
 import type { Estimate, SpectrumReport } from '../../analysis/types';
-import type { LevelSolution } from './solveLevel';
+import { scaledFigures, type LevelSolution } from './solveLevel';
 import type { SpectralResult } from './spectralEngine';
 
 export interface KernelScaling {
@@ -177,15 +177,7 @@ export function scaleLevelBack(level: LevelSolution, k: number): LevelSolution {
   return {
     ...level,
     matrix: { ...m, re: m.re.map(up), im: m.im ? m.im.map(up) : null, hsSquared: timesPow2(m.hsSquared, 2 * k) },
-    pairs: level.pairs.map((p) => ({
-      re: up(p.re), im: up(p.im),
-      get vecRe() { return p.vecRe; },
-      get vecIm() { return p.vecIm; },
-    })),
-    allRe: level.allRe.map(up),
-    allIm: level.allIm.map(up),
-    sigmaMax: up(level.sigmaMax),
-    frobenius: up(level.frobenius),
+    ...scaledFigures(level, up),
   };
 }
 

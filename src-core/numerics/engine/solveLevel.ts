@@ -78,9 +78,15 @@ export function solveLevel(matrix: GalerkinMatrix, keep: number, forceHermitian 
     im: im ? im.map((x) => x * 2 ** -half * 2 ** -(exponent - half)) : null,
   };
   const sol = solveScaled(scaled, keep, forceHermitian);
+  return { ...sol, matrix, ...scaledFigures(sol, up) };
+}
+
+/**
+ * The spectral figures of a solution with every eigenvalue and norm mapped by `up` (an exact scaling by a power of
+ * two); eigenvectors do not change and stay lazy.
+ */
+export function scaledFigures(sol: LevelSolution, up: (x: number) => number): Pick<LevelSolution, 'pairs' | 'allRe' | 'allIm' | 'sigmaMax' | 'frobenius'> {
   return {
-    ...sol,
-    matrix,
     pairs: sol.pairs.map((p) => ({
       re: up(p.re), im: up(p.im),
       get vecRe() { return p.vecRe; },
