@@ -1,13 +1,11 @@
 // Runs the benchmarks: bundles each bench/*.ts with esbuild (platform node, CommonJS, '@kernwright/core' aliased to
 // src-core/index.ts) into .cache/bench/, then loads each bundle in turn and awaits its exported `run()`.
 // Usage: npm run bench [-- name-filter]   (only files whose name contains the filter run)
-import { build } from 'esbuild';
 import { existsSync, mkdirSync, readdirSync } from 'node:fs';
 import { createRequire } from 'node:module';
-import { fileURLToPath } from 'node:url';
 import path from 'node:path';
+import { bundleTs, root } from './bundleTs.mjs';
 
-const root = path.dirname(path.dirname(fileURLToPath(import.meta.url)));
 const benchDir = path.join(root, 'bench');
 const outDir = path.join(root, '.cache', 'bench');
 const filter = process.argv[2] ?? '';
@@ -29,17 +27,7 @@ for (const name of names) {
   const outfile = path.join(outDir, name.replace(/\.ts$/, '.cjs'));
   console.log(`\n== ${name}`);
   try {
-    await build({
-      entryPoints: [path.join(benchDir, name)],
-      outfile,
-      bundle: true,
-      platform: 'node',
-      target: 'node20',
-      format: 'cjs',
-      sourcemap: 'inline',
-      logLevel: 'warning',
-      alias: { '@kernwright/core': path.join(root, 'src-core', 'index.ts') },
-    });
+    await bundleTs(path.join(benchDir, name), outfile);
     delete require.cache[outfile];
     const mod = require(outfile);
     if (typeof mod.run !== 'function') throw new Error(`${name} exports no run() function`);

@@ -3,13 +3,11 @@
 // bench/*.ts, and runs it from the repository root with the given options. It drives the built bundles in
 // server/dist/, so run `node scripts/build.mjs` first.
 // Usage: npm run fuzz [-- --docs N --lsp-minutes M --seed S --part cli|lsp|all]
-import { build } from 'esbuild';
 import { spawnSync } from 'node:child_process';
 import { existsSync, mkdirSync, readdirSync, statSync } from 'node:fs';
-import { fileURLToPath } from 'node:url';
 import path from 'node:path';
+import { bundleTs, root } from './bundleTs.mjs';
 
-const root = path.dirname(path.dirname(fileURLToPath(import.meta.url)));
 const outDir = path.join(root, '.cache', 'fuzz');
 const outfile = path.join(outDir, 'run.cjs');
 
@@ -33,16 +31,6 @@ for (const bundle of ['cli.js', 'server.js', 'worker.js']) {
 }
 
 mkdirSync(outDir, { recursive: true });
-await build({
-  entryPoints: [path.join(root, 'fuzz', 'run.ts')],
-  outfile,
-  bundle: true,
-  platform: 'node',
-  target: 'node20',
-  format: 'cjs',
-  sourcemap: 'inline',
-  logLevel: 'warning',
-  alias: { '@kernwright/core': path.join(root, 'src-core', 'index.ts') },
-});
+await bundleTs(path.join(root, 'fuzz', 'run.ts'), outfile);
 const result = spawnSync(process.execPath, ['--enable-source-maps', outfile, ...process.argv.slice(2)], { cwd: root, stdio: 'inherit' });
 process.exit(result.status ?? 2);
