@@ -11,7 +11,7 @@ import { compileKernel } from '../../semantics/evaluator';
 import { mayBeComplex } from '../../semantics/lower';
 import { closeOver, collectBindings, slotCountOf } from '../../semantics/irTools';
 import { compositeRule } from '../quadrature';
-import { generalEigen, singularValues } from '../linalg';
+import { entriesFinite, generalEigen, singularValues } from '../linalg';
 import type { AnalysisOptions, EigenEstimate, SpectrumReport } from '../../analysis/types';
 import { expandSeparable, termFactors } from './separable';
 import { meshBreakpoints, planMesh } from './mesh';
@@ -112,16 +112,22 @@ function degenerateUnscaled(
   normM = Math.sqrt(normM) * unit;
   // A quadrature that has not settled between the two orders is not trusted (factors with singularities).
   if (dM > 1e-8 * Math.max(normM, 1e-300)) return null;
-  const e = generalEigen(fine.re, fine.im, r);
+  // The eigenproblem of M/2^m (2^m near the largest entry, so the scaling is exact): entries near 1e300 overflow
+  // inside the eigensolver otherwise (its vectors came back NaN; a fuzz run found it); the values are scaled back.
+  const m = Math.round(Math.log2(unit));
+  const scaledRe = fine.re.map((x) => timesPow2(x, -m));
+  const scaledIm = fine.im.map((x) => timesPow2(x, -m));
+  const e = generalEigen(scaledRe, scaledIm, r);
   if (!e.converged) return null;
+  if (!entriesFinite(e.vectorsRe) || !entriesFinite(e.vectorsIm) || !entriesFinite(e.valuesRe) || !entriesFinite(e.valuesIm)) return null;
   const sv = singularValues(e.vectorsRe, e.vectorsIm, r, r);
   const cond = sv[r - 1] > 0 ? sv[0] / sv[r - 1] : Infinity;
   const amplification = hermitian ? 1 : Math.min(cond, 1e8);
   const floor = 16 * Number.EPSILON * normM * r;
   const out: EigenEstimate[] = [];
   for (let k = 0; k < r; k++) {
-    const re = e.valuesRe[k];
-    const im = e.valuesIm[k];
+    const re = timesPow2(e.valuesRe[k], m);
+    const im = timesPow2(e.valuesIm[k], m);
     const error = amplification * dM + floor;
     if (Math.hypot(re, im) <= Math.max(1e3 * floor, 1e-13 * normM)) continue;
     out.push({ re, im: hermitian && Math.abs(im) <= error ? 0 : im, error });

@@ -14,6 +14,7 @@ import { buildLadder, discretisationSize } from './ladder';
 import { assembleGalerkin } from './assemble';
 import { solveLevel, type LevelSolution } from './solveLevel';
 import { estimateSequenceError, roundingFloor } from './errorEstimate';
+import { entriesFinite } from '../linalg';
 import { estimateSingularity, type SingularityEstimate } from './singularity';
 import { schurBound, traceIntegral } from './bounds';
 import { sampleEigenfunctions } from './eigenfunctions';
@@ -65,11 +66,6 @@ export const workUnitsPerMs = 1e6;
 
 export function safetyNetMs(budgetMs: number): number {
   return 4 * budgetMs + 1000;
-}
-
-function entriesFinite(xs: Float64Array): boolean {
-  for (let k = 0; k < xs.length; k++) if (!Number.isFinite(xs[k])) return false;
-  return true;
 }
 
 export function levelWork(sol: LevelSolution): number {

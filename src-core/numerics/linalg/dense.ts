@@ -42,6 +42,12 @@ export function checkSquareComplex(caller: string, re: Float64Array, im: Float64
 }
 
 /** True when `im` is null or all zero: the matrix is real. */
+/** True when every entry is a finite number (solvers assert it; callers with doubtful data ask first). */
+export function entriesFinite(xs: ArrayLike<number>): boolean {
+  for (let k = 0; k < xs.length; k++) if (!Number.isFinite(xs[k])) return false;
+  return true;
+}
+
 export function isRealPart(im: Float64Array | null): boolean {
   if (im === null) return true;
   for (let p = 0; p < im.length; p++) if (im[p] !== 0) return false;

@@ -10,4 +10,4 @@ export { hermitianEigen, type HermitianEigen } from './hermitianEigen';
 export { generalEigen, type GeneralEigen } from './generalEigen';
 export { singularValues, largestSingularValue } from './singularValues';
 export { leadingSymmetricEigen, type LeadingEigen, type LeadingEigenOptions } from './leadingSymmetricEigen';
-export { matmul, transpose, hermitianDefect, frobeniusNorm, identity } from './dense';
+export { matmul, transpose, hermitianDefect, frobeniusNorm, identity, entriesFinite } from './dense';
