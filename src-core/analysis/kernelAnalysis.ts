@@ -11,6 +11,7 @@ import { runSpectralEngine, type SpectralResult } from '../numerics/engine/spect
 import { crossCheckSeparable } from '../numerics/engine/degenerate';
 import { describeTriangular, detectTriangularSupport, triangularOnGrid } from '../numerics/engine/triangular';
 import { compileKernel } from '../semantics/evaluator';
+import { nodeAtPosition, positionOfRange } from '../semantics/irTools';
 import type { IrFunction } from '../semantics/ir';
 import type { AnalysisOptions, SpectrumReport } from './types';
 
@@ -73,7 +74,11 @@ function compute(k: KernelSymbol, options: AnalysisOptions, token?: Cancellation
   for (const cap of result.caps) {
     if (cap.kind === 'integer-lines') {
       const lines = cap.lines < 1e6 ? String(cap.lines) : `about ${cap.lines.toExponential(1)}`;
-      notes.push((sym) => makeDiagnostic('jump-lines-capped', cap.range, { name: sym.name, lines, cap: cap.cap },
+      // The entry is shared by every kernel with this definition hash, in any document: the range is found again
+      // in the kernel at hand (a fuzz run found the first document's range reported in a second one).
+      const position = positionOfRange(ir.root, cap.range);
+      const rangeIn = (sym: KernelSymbol) => (sym.ir ? nodeAtPosition(sym.ir.root, position)?.range : undefined) ?? sym.nameRange;
+      notes.push((sym) => makeDiagnostic('jump-lines-capped', rangeIn(sym), { name: sym.name, lines, cap: cap.cap },
         { figures: { lines: cap.lines, cap: cap.cap } }));
     } else {
       notes.push((sym) => makeDiagnostic('loci-capped', sym.nameRange, {

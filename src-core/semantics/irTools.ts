@@ -13,6 +13,39 @@ export function irChildren(n: IrNode): IrNode[] {
   }
 }
 
+/**
+ * Pre-order position of the first node whose source range is `range` (−1 when none). Two kernels with the same
+ * definition hash have trees of the same shape, so a position found in one names the same node in the other:
+ * results cached by hash keep positions, not ranges, and find the ranges in the document at hand.
+ */
+export function positionOfRange(root: IrNode, range: { readonly start: number; readonly end: number }): number {
+  let index = 0;
+  const stack: IrNode[] = [root];
+  while (stack.length > 0) {
+    const n = stack.pop()!;
+    if (n.range.start === range.start && n.range.end === range.end) return index;
+    index++;
+    const kids = irChildren(n);
+    for (let i = kids.length - 1; i >= 0; i--) stack.push(kids[i]);
+  }
+  return -1;
+}
+
+/** The node at a pre-order position (see positionOfRange), or null. */
+export function nodeAtPosition(root: IrNode, position: number): IrNode | null {
+  if (position < 0) return null;
+  let index = 0;
+  const stack: IrNode[] = [root];
+  while (stack.length > 0) {
+    const n = stack.pop()!;
+    if (index === position) return n;
+    index++;
+    const kids = irChildren(n);
+    for (let i = kids.length - 1; i >= 0; i--) stack.push(kids[i]);
+  }
+  return null;
+}
+
 /** slot → bound value for every `let` in the tree (slots are unique within one tree). */
 export function collectBindings(root: IrNode): Map<number, IrNode> {
   const out = new Map<number, IrNode>();

@@ -115,6 +115,17 @@ describe('caps on loci, with a diagnostic when one is hit', () => {
     expect(Math.abs(l1.re - 49.5)).toBeLessThanOrEqual(l1.error);
   });
 
+  // The analysis is cached by the kernel's definition, across documents: the second document, where the same
+  // kernel sits further down, must get the range of its own floor (a fuzz run found the first one's range there).
+  it('the same kernel in two documents: each KW404 lies on its own floor', () => {
+    const first = 'domain [0, 1]\nkernel k(t, s) = floor(100*t)\n';
+    const second = '# a comment that moves the kernel\n\ndomain [0, 1]\nkernel k(t, s) = floor(100*t)\n';
+    for (const text of [first, second]) {
+      const cap = analyzeText(text).diagnostics.find((d) => d.code === 'KW404');
+      expect(text.slice(cap!.range.start, cap!.range.end)).toBe('floor(100*t)');
+    }
+  });
+
   // Four floors with about 250 distinct axis-parallel jump lines together: more panels than the resolution cap
   // (384 unknowns) allows even at degree 1, so the mesh follows none of them (KW405) and refines uniformly. The trace
   // ∫₀¹ K(t, t) dt is a sum of ∫₀¹ floor(c·t) dt = (Σ_{k<⌊c⌋} k/c) + ⌊c⌋(1 − ⌊c⌋/c), computed here by that sum.
