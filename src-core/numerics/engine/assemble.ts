@@ -71,7 +71,7 @@ function mirrored(rule: PairRule): PairRule {
   if (!unit) {
     const blocks = Int32Array.from(rule.unit.blocks);
     for (let b = 3; b < blocks.length; b += 4) blocks[b] = blocks[b] === 1 ? 2 : blocks[b] === 2 ? 1 : 0;
-    unit = { x: rule.unit.y, y: rule.unit.x, w: rule.unit.w, nearSingular: rule.unit.nearSingular, blocks };
+    unit = { x: rule.unit.y, y: rule.unit.x, w: rule.unit.w, wSquare: rule.unit.wSquare, nearSingular: rule.unit.nearSingular, blocks };
     mirrors.set(rule.unit, unit);
   }
   return { unit, t0: rule.s0, s0: rule.t0, ht: rule.hs, hs: rule.ht };
@@ -257,7 +257,7 @@ function projectUnit(
   local: Float64Array, localIm: Float64Array | null, tally: Float64Array,
   zr: Float64Array, zi: Float64Array | null,
 ): void {
-  const { w, nearSingular, blocks } = unit;
+  const { w, wSquare, nearSingular, blocks } = unit;
   const scale = Math.sqrt(area);
   let hs2 = 0;
   let bad = 0;
@@ -269,7 +269,7 @@ function projectUnit(
       if (!nearSingular[k]) bad++;
       vr = 0; vi = 0;
     }
-    hs2 += area * w[k] * (vr * vr + vi * vi);
+    hs2 += area * wSquare[k] * (vr * vr + vi * vi);
     kr[k] = scale * w[k] * vr;
     if (ki) ki[k] = scale * w[k] * vi;
   }

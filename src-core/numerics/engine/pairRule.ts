@@ -13,7 +13,7 @@
  * ∫ d^(−α) below the resolvable distance (δ^(1−α): 2.5 % for α = 0.9 at δ = 1e-16) was lost.
  */
 import {
-  collapsedTriangleRule, gaussLegendre, mapRule, splitConvexPolygon, triangulateConvex, type Vec2,
+  DEFAULT_GRADING_RATIO, collapsedTriangleRule, gaussLegendre, mapRule, splitConvexPolygon, triangulateConvex, type Vec2,
 } from '../quadrature';
 import { normaliseLine, type Line, type Locus } from './loci';
 import type { SingularityEstimate } from './singularity';
@@ -36,9 +36,33 @@ export const tailLevels = 10;
 export function withPowerTails(loci: readonly Locus[], singularities: readonly SingularityEstimate[]): PowerTailLocus[] {
   return loci.map((l) => {
     const s = singularities.find((e) => e.locus.line.ct === l.line.ct && e.locus.line.cs === l.line.cs && e.locus.line.c0 === l.line.c0);
-    if (!s || s.type !== 'power' || s.exponentError !== 0 || !(s.exponent >= 0.4 && s.exponent < 1) || s.point) return l;
+    if (!s || s.type !== 'power' || s.exponentError !== 0 || !(s.exponent > 0 && s.exponent < 1) || s.point) return l;
     return { ...l, tailExponent: s.exponent };
   });
+}
+
+/**
+ * The relative error that rounding adds to a figure through the power tails (a floor under the level-to-level
+ * estimates, which cannot see it: every level stops at the same `tailLevels`). The tail's constant is read from
+ * the carrier panel's points, at distances δ ≈ σ^tailLevels·h from the line (h ≈ (b − a)/4, the coarsest pair),
+ * where t − s (or the line's form) is known only to ε·max(|a|, |b|): a relative error ρ = p·α·ε·max(|a|, |b|)/δ in
+ * |K|^p. The tail holds the fraction δ^(1 − pα) of the integral (d^(−pα) integrated from 0), so the figure moves by
+ * about δ^(1 − pα)·ρ of its size; four times that is returned (the safety factor of errorEstimate.ts). p = 1 for the
+ * Galerkin entries (eigenvalues, norm), p = 2 for ∫∫|K|² (the Hilbert–Schmidt norm; 0 when 2α ≥ 1). Derived here
+ * from the rounding of the coordinates (common practice for floating-point error bounds), not from a source.
+ */
+export function tailRoundingFloor(loci: readonly PowerTailLocus[], a: number, b: number, p: 1 | 2): number {
+  const delta = DEFAULT_GRADING_RATIO ** tailLevels * ((b - a) / 4);
+  if (!(delta > 0)) return 0;
+  let worst = 0;
+  for (const l of loci) {
+    const alpha = l.tailExponent;
+    if (alpha === undefined || p * alpha >= 1) continue;
+    const norm = Math.hypot(l.line.ct, l.line.cs);
+    const rho = (p * alpha * Number.EPSILON * (Math.abs(l.line.ct) + Math.abs(l.line.cs)) * Math.max(Math.abs(a), Math.abs(b))) / (norm * delta);
+    worst = Math.max(worst, 4 * (delta / (b - a)) ** (1 - p * alpha) * rho);
+  }
+  return worst;
 }
 
 /** A tensor Gauss rule on the pair (point k = i·ns + j), or a rule on the unit square mapped onto the pair. */
@@ -166,6 +190,11 @@ export interface UnitPairRule {
   readonly x: Float64Array;
   readonly y: Float64Array;
   readonly w: Float64Array;
+  /**
+   * Weights for ∫∫|K|² (the Hilbert–Schmidt norm): the power tail of an edge rule is taken with 2α there
+   * (collapsedTriangle.ts); the same array as w when no triangle has a tail.
+   */
+  readonly wSquare: Float64Array;
   /** True for points within rounding distance of a singular locus (a value there that is not finite counts as 0). */
   readonly nearSingular: Uint8Array;
   /**
@@ -206,7 +235,8 @@ let unitRuleBytes = 0;
 const unitRuleByteLimit = 48 * 2 ** 20;
 
 function ruleBytes(r: UnitPairRule): number {
-  return r.x.byteLength + r.y.byteLength + r.w.byteLength + r.nearSingular.byteLength + r.blocks.byteLength;
+  return r.x.byteLength + r.y.byteLength + r.w.byteLength + (r.wSquare === r.w ? 0 : r.wSquare.byteLength)
+    + r.nearSingular.byteLength + r.blocks.byteLength;
 }
 
 function unitRule(crossing: readonly { line: TailLine; kind: Locus['kind'] }[], touching: readonly TailLine[], options: PairRuleOptions): UnitPairRule {
@@ -224,6 +254,8 @@ function unitRule(crossing: readonly { line: TailLine; kind: Locus['kind'] }[], 
   const xs: number[] = [];
   const ys: number[] = [];
   const ws: number[] = [];
+  const ws2: number[] = [];
+  let squareDiffers = false;
   const near: number[] = [];
   const blocks: number[] = [];
   for (const poly of pieces) {
@@ -241,6 +273,7 @@ function unitRule(crossing: readonly { line: TailLine; kind: Locus['kind'] }[], 
           : tri.grade === 'vertex'
             ? { gradeTowardVertex: { levels: options.singularLevels, pointsPerPanel: options.gradedPoints, minDistance: 0 } }
             : undefined);
+      if (rule.wSquare !== rule.w) squareDiffers = true;
       const start = xs.length;
       const cols = options.order;
       const rows = rule.w.length / cols;
@@ -249,14 +282,16 @@ function unitRule(crossing: readonly { line: TailLine; kind: Locus['kind'] }[], 
         xs.push(rule.x[k]);
         ys.push(rule.y[k]);
         ws.push(rule.w[k]);
+        ws2.push(rule.wSquare[k]);
         let d = Infinity;
         for (const l of singular) d = Math.min(d, Math.abs(l.ct * rule.x[k] + l.cs * rule.y[k] + l.c0));
         near.push(d < 1e-6 ? 1 : 0);
       }
     }
   }
+  const w = Float64Array.from(ws);
   return {
-    x: Float64Array.from(xs), y: Float64Array.from(ys), w: Float64Array.from(ws), nearSingular: Uint8Array.from(near),
-    blocks: Int32Array.from(blocks),
+    x: Float64Array.from(xs), y: Float64Array.from(ys), w, wSquare: squareDiffers ? Float64Array.from(ws2) : w,
+    nearSingular: Uint8Array.from(near), blocks: Int32Array.from(blocks),
   };
 }

@@ -19,7 +19,7 @@ import { estimateSingularity, type SingularityEstimate } from './singularity';
 import { schurBound, traceIntegral } from './bounds';
 import { sampleEigenfunctions } from './eigenfunctions';
 import { confirmUnknownLoci } from './confirmLoci';
-import { withPowerTails } from './pairRule';
+import { tailRoundingFloor, withPowerTails } from './pairRule';
 import { absoluteFloor, scaleKernel, scaleResultBack } from './kernelScale';
 
 export interface SpectralResult {
@@ -179,6 +179,7 @@ function runScaled(
   let reached = Infinity;
   let estimates: { eig: EigenEstimate[]; norm: Estimate; hs: Estimate | null } | null = null;
   const hsFinite = singularities.every((s) => s.squareIntegrable);
+  const tailFloors = { eig: tailRoundingFloor(oblique, a, b, 1), hs: tailRoundingFloor(oblique, a, b, 2) };
 
   for (let k = 0; k < ladder.length; k++) {
     throwIfCancelled(token);
@@ -211,7 +212,7 @@ function runScaled(
     lastWork = levelWork(sol);
     spent += lastWork;
     if (levels.length < 2) continue;
-    estimates = estimateAll(levels, count, hsFinite, singularLoci.length > 0, absFloor);
+    estimates = estimateAll(levels, count, hsFinite, singularLoci.length > 0, absFloor, tailFloors);
     const scale = Math.max(estimates.norm.value, 1e-300);
     const worst = Math.max(estimates.norm.error, ...estimates.eig.map((e) => e.error));
     reached = worst / scale;
@@ -221,7 +222,7 @@ function runScaled(
   }
   const finest = levels[levels.length - 1];
   if (!finest) return empty('the analysis was stopped before the first discretisation finished');
-  if (!estimates) estimates = estimateAll(levels, count, hsFinite, singularLoci.length > 0, absFloor);
+  if (!estimates) estimates = estimateAll(levels, count, hsFinite, singularLoci.length > 0, absFloor, tailFloors);
 
   const schur = schurBound(kernel, loci.loci, a, b, token);
   const trace = singularities.some((s) => s.type !== 'none' && s.locus.line.ct === -s.locus.line.cs && s.locus.line.c0 === 0)
@@ -243,10 +244,15 @@ function runScaled(
   };
 }
 
-/** `absFloor`: the absolute error of every figure from subnormal kernel values (kernelScale.ts), else 0. */
-function estimateAll(levels: readonly LevelSolution[], count: number, hsFinite: boolean, cautious: boolean, absFloor: number) {
+/**
+ * `absFloor`: the absolute error of every figure from subnormal kernel values (kernelScale.ts), else 0.
+ * `tailFloors`: relative errors from rounding in the power tails (pairRule.ts, tailRoundingFloor), of the Galerkin
+ * figures (relative to ‖T‖) and of the Hilbert–Schmidt norm.
+ */
+function estimateAll(levels: readonly LevelSolution[], count: number, hsFinite: boolean, cautious: boolean, absFloor: number,
+  tailFloors: { readonly eig: number; readonly hs: number }) {
   const finest = levels[levels.length - 1];
-  const floor = Math.max(roundingFloor(finest.sigmaMax, finest.matrix.n), absFloor);
+  const floor = Math.max(roundingFloor(finest.sigmaMax, finest.matrix.n), absFloor, tailFloors.eig * finest.sigmaMax);
   const eig: EigenEstimate[] = finest.pairs.slice(0, count).map((p) => {
     const seq = matchChain(levels, p.re, p.im);
     const e = estimateSequenceError(seq.slice(-3), floor, cautious);
@@ -258,7 +264,8 @@ function estimateAll(levels: readonly LevelSolution[], count: number, hsFinite: 
   let hs: Estimate | null = null;
   if (hsFinite) {
     const hsSeq = levels.slice(-3).map((l) => [Math.sqrt(l.matrix.hsSquared), 0] as [number, number]);
-    const he = estimateSequenceError(hsSeq, Math.max(8 * Number.EPSILON * Math.sqrt(finest.matrix.hsSquared), absFloor), cautious);
+    const hsValue = Math.sqrt(finest.matrix.hsSquared);
+    const he = estimateSequenceError(hsSeq, Math.max((8 * Number.EPSILON + tailFloors.hs) * hsValue, absFloor), cautious);
     hs = { value: Math.sqrt(finest.matrix.hsSquared), error: he.error };
   }
   return { eig, norm, hs };

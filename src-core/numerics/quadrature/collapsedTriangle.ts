@@ -27,6 +27,10 @@
  * C ≈ F(s_j)·s_j^α averaged over that panel with its Gauss weights. Exact for C constant; for smooth C the
  * relative error of the tail is O(δ / panel size), the same idea as product integration with a singular weight
  * (K. E. Atkinson, The Numerical Solution of Integral Equations of the Second Kind, 1997, §4.2).
+ * The same points also carry weights `wSquare` for |F|², which grows like s^(−2α): the tail there is
+ * C' δ^(1−2α)/(1 − 2α) with C' ≈ |F(s_j)|² s_j^(2α) (for 2α < 1; beyond, ∫∫|F|² is infinite and wSquare = w).
+ * At α = 0.497 the part of ∫ s^(−2α) below δ = 6e-9 is δ^0.006 ≈ 89 % of the whole, so without this tail a
+ * Hilbert–Schmidt norm near the threshold loses most of its value.
  */
 import { gaussLegendre } from './gaussLegendre';
 import { DEFAULT_GRADING_LEVELS, DEFAULT_GRADING_RATIO, gradedPanels } from './gradedPanels';
@@ -64,6 +68,8 @@ export interface CollapsedTriangleOptions {
 export interface TriangleRule extends Rule2D {
   readonly edgeDistance: Float64Array;
   readonly vertexDistance: Float64Array;
+  /** Weights for |f|² when the edge grading has a power tail (see the header); otherwise the same array as w. */
+  readonly wSquare: Float64Array;
 }
 
 /**
@@ -106,6 +112,7 @@ export function collapsedTriangleRule(
   const x = new Float64Array(size);
   const y = new Float64Array(size);
   const w = new Float64Array(size);
+  const wSquare = ru.wSquare === ru.w ? w : new Float64Array(size);
   const edgeDistance = new Float64Array(size);
   const vertexDistance = new Float64Array(size);
   let k = 0;
@@ -113,6 +120,7 @@ export function collapsedTriangleRule(
     const u = ru.u[i];
     const s = ru.s[i];
     const wu = ru.w[i] * u * twiceArea;
+    const wu2 = ru.wSquare[i] * u * twiceArea;
     for (let j = 0; j < n; j++) {
       const v = (rv.nodes[j] + 1) / 2;
       const wv = rv.weights[j] / 2;
@@ -128,12 +136,13 @@ export function collapsedTriangleRule(
         y[k] = v1[1] + v * (v2[1] - v1[1]) - s * dy;
       }
       w[k] = wu * wv;
+      if (wSquare !== w) wSquare[k] = wu2 * wv;
       edgeDistance[k] = s * height;
       vertexDistance[k] = u * Math.hypot(dx, dy);
       k++;
     }
   }
-  return { x, y, w, edgeDistance, vertexDistance };
+  return { x, y, w, edgeDistance, vertexDistance, wSquare };
 }
 
 /** The rule in the collapsed coordinate, with u (0 at v0) and s = 1 − u (0 on the edge) both kept accurate. */
@@ -141,6 +150,8 @@ interface CollapsedRule {
   readonly u: Float64Array;
   readonly s: Float64Array;
   readonly w: Float64Array;
+  /** Weights for the square of the integrand (the power tail with 2α); the same array as w without a tail. */
+  readonly wSquare: Float64Array;
 }
 
 /** One panel: [uLo, uLo + length] in u, which is [sLo, sLo + length] in s = 1 − u. */
@@ -187,6 +198,8 @@ function collapsedRule(
   const u = new Float64Array(total);
   const s = new Float64Array(total);
   const w = new Float64Array(total);
+  const square = tail >= 0 && carrier >= 0 && 2 * alpha! < 1;
+  const wSquare = square ? new Float64Array(total) : w;
   let k = 0;
   panels.forEach((p, i) => {
     if (i === tail && carrier >= 0) return;
@@ -199,12 +212,16 @@ function collapsedRule(
       if (i === carrier) {
         // ∫₀^δ C s^(−α) ds = C δ^(1−α)/(1 − α), C ≈ Σ_j β_j F(s_j) s_j^α with β_j = g.weights[j]/2 (sum 1).
         const delta = panels[tail].length;
+        const base = w[k];
         w[k] += (g.weights[j] / 2) * s[k] ** alpha! * delta ** (1 - alpha!) / (1 - alpha!);
+        if (square) wSquare[k] = base + (g.weights[j] / 2) * s[k] ** (2 * alpha!) * delta ** (1 - 2 * alpha!) / (1 - 2 * alpha!);
+      } else if (square) {
+        wSquare[k] = w[k];
       }
       k++;
     }
   });
-  return { u, s, w };
+  return { u, s, w, wSquare };
 }
 
 function gradingOf(g: TriangleGrading, towardA: boolean) {
