@@ -170,7 +170,8 @@ export function measureBoundedness(ctx: CheckContext): BoundednessFacts {
   for (const s of ctx.engine.singularities) {
     if (s.type === 'none') continue;
     found.push({
-      where: describePlace(s.locus.line, a, b), type: s.type, exponent: s.exponent, exponentError: s.exponentError,
+      // A point estimate of a line is the corner where the line ends (singularity.ts): named as that corner.
+      where: s.point ? `the corner (t, s) = (${fmt(s.at[0])}, ${fmt(s.at[1])})` : describePlace(s.locus.line, a, b), type: s.type, exponent: s.exponent, exponentError: s.exponentError,
       point: s.point, at: s.at, curve: false, geometry: s.geometry, bounded: s.bounded, hilbertSchmidt: s.hilbertSchmidt,
       class: classOf(s.bounded, s.hilbertSchmidt),
     });

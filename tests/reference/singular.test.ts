@@ -198,3 +198,40 @@ describe('removable singularities are smooth kernels', () => {
     for (const e of sp.eigenvalues.slice(0, 4)) expect(e.error / sp.norm!.value).toBeLessThanOrEqual(1e-13);
   });
 });
+
+// Lines on which K stays bounded but that end in a corner singularity: the kernel is zero on the side of the
+// diagonal that holds the line t = 0, and grows like a power of 1/t into the corner (0, 0) from the other side.
+describe('corner singularities at the end of a line', () => {
+  const analyseWith = (body: string, claims: string) => analyzeText(`domain [0, 1]\nkernel k(t, s) = ${body}\n  expect ${claims}\n`);
+
+  // Hardy's averaging operator (Tf)(t) = (1/t)∫₀ᵗ f: bounded with ‖T‖ = 2 (Hardy's inequality; G. H. Hardy,
+  // J. E. Littlewood & G. Pólya, Inequalities, 1934, §9.8, from memory), not Hilbert–Schmidt: ∫∫|K|² = ∫₀¹ t^(−2)·t dt
+  // diverges (common practice). The HS claim must not hold; boundedness may stay undecided (the exponent 1 is
+  // measured, and the threshold is within its error), never "unbounded".
+  it('t > s ? 1/t : 0 (Hardy) is not called Hilbert–Schmidt', () => {
+    const r = analyseWith('t > s ? 1/t : 0', 'hilbert-schmidt');
+    const k = r.kernels[0];
+    expect(k.boundedness!.class).not.toBe('hilbert-schmidt');
+    expect(k.boundedness!.class).not.toBe('unbounded');
+    expect(r.diagnostics.some((d) => d.code === 'KW605' || (d.code === 'KW609' && d.message.includes('“hilbert-schmidt”')))).toBe(true);
+    expect(k.boundedness!.where).toBe('the corner (t, s) = (0, 0)');
+  });
+
+  // f = 1 gives (Tf)(t) = t^(−1.5)·t = t^(−0.5), not in L² (common practice): unbounded.
+  it('t > s ? t^(-1.5) : 0 is unbounded, at the corner', () => {
+    const r = analyseWith('t > s ? t^(-1.5) : 0', 'bounded');
+    expect(r.kernels[0].boundedness!.class).toBe('unbounded');
+    expect(r.kernels[0].spectrum).toBeNull();
+    expect(r.diagnostics.some((d) => d.code === 'KW604')).toBe(true);
+  });
+
+  // ∫∫_{s<t} t^(−1) = ∫₀¹ t^(−1)·t dt = 1 (common practice): Hilbert–Schmidt with ‖K‖_HS = 1.
+  it('t > s ? t^(-0.5) : 0 is Hilbert–Schmidt with ‖K‖_HS = 1 within its error', () => {
+    const r = analyseWith('t > s ? t^(-0.5) : 0', 'hilbert-schmidt');
+    const k = r.kernels[0];
+    expect(k.boundedness!.class).toBe('hilbert-schmidt');
+    const hs = k.spectrum?.hsNorm;
+    if (hs) expect(Math.abs(hs.value - 1)).toBeLessThanOrEqual(hs.error);
+    expect(r.diagnostics.some((d) => d.code === 'KW605')).toBe(false);
+  });
+});

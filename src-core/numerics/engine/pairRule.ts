@@ -26,11 +26,10 @@ export const tailLevels = 10;
 
 /**
  * The loci with their power tails: the exponent of a 'power' singularity read from the expression (exponentError
- * 0), for oblique lines only (edge rules are built for those), and only for 0.4 ≤ α < 1. Below 0.4 the part of
- * ∫ d^(−α) closer than 1e-16 is under 1e-16^(0.6) ≈ 2e-10 of the whole, and the deep graded levels reach it; the
- * tail would only cost accuracy in the Hilbert–Schmidt norm, which the same rule integrates as ∫∫|K|², growing
- * like d^(−2α) (the tail is exact for d^(−α) only). At α = 0.49 that ∫∫|K|² has 1e-16^(0.02) ≈ 48 % of its value
- * closer than 1e-16, which neither rule resolves.
+ * 0), for oblique lines only (edge rules are built for those), for every α in (0, 1). The Hilbert–Schmidt norm
+ * integrates ∫∫|K|², which grows like d^(−2α), with the rule's second weights (the tail with 2α): at α = 0.49 that
+ * integral has 1e-16^(0.02) ≈ 48 % of its value closer than 1e-16, which no graded rule resolves; at α = 0.3 the
+ * deep graded levels alone left 2e-7 of it out, beyond the level-to-level error estimate.
  * Others are returned as they are.
  */
 export function withPowerTails(loci: readonly Locus[], singularities: readonly SingularityEstimate[]): PowerTailLocus[] {

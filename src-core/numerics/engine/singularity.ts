@@ -13,7 +13,8 @@
  *    is finite for α < 1 (polar coordinates), and for α ≤ 1 T is dominated by C/(t + s), bounded by Hilbert's
  *    inequality (G. H. Hardy, J. E. Littlewood & G. Pólya, Inequalities, 1934, §9.1); if |K| ≥ c·r^(−α) along the
  *    diagonal direction, f_ε = ε^(−1/2) on [ε, (1 + δ)ε] gives ⟨Kf_ε, f_ε⟩ ~ ε^(1−α) (unbounded for α > 1) and |K|²
- *    is not integrable for α ≥ 1. The upper exponent is the largest over five directions, the lower one the diagonal's.
+ *    is not integrable for α ≥ 1. The upper exponent is the largest over five directions, the lower one the diagonal's
+ *    or, where two neighbouring directions both grow, the sector's between them (the same arguments in that sector).
  * The exponent is measured by log–log slopes of |K| at distances 10⁻⁴ … 10⁻⁷ of the domain length (on both sides of a
  * line, at three points along it), with an error of three times the difference between the slopes of the two halves
  * (at least 0.002). Where the expression states it (Locus.written) and the measurement agrees, the written value is
@@ -109,9 +110,33 @@ function verdict(holdsIf: boolean, failsIf: boolean): LocalVerdict {
   return holdsIf ? 'holds' : failsIf ? 'fails' : 'undecided';
 }
 
+const verdictRank: Record<LocalVerdict, number> = { holds: 0, undecided: 1, fails: 2 };
+
+/**
+ * The growth toward a locus, and toward the corners of the square where it ends: a line on which K stays bounded
+ * may still end in a point singularity (`t > s ? 1/t : 0`, Hardy's averaging operator, is 0 along t = 0 and grows
+ * like 1/t into the corner (0, 0) from the side t > s). The worse of the line's and the corners' verdicts is
+ * returned; a corner that is worse makes the estimate a point estimate there.
+ */
 export function estimateSingularity(kernel: CompiledKernel, locus: Locus, a: number, b: number): SingularityEstimate | null {
   const seg = segmentInSquare(locus.line, a, b);
   if (!seg) return null;
+  const line = estimateAlong(kernel, locus, seg, a, b);
+  if (line.point) return line;
+  const L = b - a;
+  const isCorner = (p: readonly [number, number]) => [p[0], p[1]].every((x) => Math.abs(x - a) <= 1e-12 * L || Math.abs(x - b) <= 1e-12 * L);
+  let worst = line;
+  for (const end of [seg[0], seg[1]]) {
+    if (!isCorner(end)) continue;
+    const corner = estimateAlong(kernel, locus, [end, end], a, b);
+    const worse = verdictRank[corner.bounded] > verdictRank[worst.bounded]
+      || (corner.bounded === worst.bounded && verdictRank[corner.hilbertSchmidt] > verdictRank[worst.hilbertSchmidt]);
+    if (worse) worst = corner;
+  }
+  return worst;
+}
+
+function estimateAlong(kernel: CompiledKernel, locus: Locus, seg: [readonly [number, number], readonly [number, number]], a: number, b: number): SingularityEstimate {
   const L = b - a;
   const point = Math.hypot(seg[1][0] - seg[0][0], seg[1][1] - seg[0][1]) <= 1e-12 * L;
   const geometry: LocusGeometry = point ? 'point' : locus.line.ct === 0 || locus.line.cs === 0 ? 'axis' : 'oblique';
@@ -126,16 +151,19 @@ export function estimateSingularity(kernel: CompiledKernel, locus: Locus, a: num
   };
   const none = { type: 'none' as const, exponent: 0, error: 0 };
   let worst: Growth = none;
-  let at: [number, number] = seg[0];
+  let at: [number, number] = [seg[0][0], seg[0][1]];
   let upper = 0; // the largest α + error over all measurements (growth is at most this)
   let lower = -Infinity; // the lower end of the exponent where growth is surely at least that (diagonal direction at a point)
   const measured: Growth[] = [];
+  // At a point: the directions in order (null where not measured), for the sectors between neighbours.
+  const directions: (Growth | null)[] = [];
   if (point) {
     const p = seg[0];
     const ut = p[0] <= a + 1e-12 * L ? 1 : -1;
     const us = p[1] <= a + 1e-12 * L ? 1 : -1;
     for (const theta of [0, Math.PI / 8, Math.PI / 4, (3 * Math.PI) / 8, Math.PI / 2]) {
       const g = growthAlong(absK, p, ut * Math.cos(theta), us * Math.sin(theta), a, b);
+      directions.push(g);
       if (!g) continue;
       measured.push(g);
       if (g.type === 'power') upper = Math.max(upper, g.exponent + g.error);
@@ -160,14 +188,24 @@ export function estimateSingularity(kernel: CompiledKernel, locus: Locus, a: num
       }
     }
   }
-  // The written exponent, when every measurement agrees with it (within its error and 0.02).
+  // A sector of directions at a point where |K| grows at least like r^(−α) (two neighbouring directions): ∫∫|K|²
+  // diverges there for α ≥ 1 (polar coordinates), and test functions concentrated in it show T unbounded for α > 1.
+  let sector = -Infinity;
+  for (let i = 0; i + 1 < directions.length; i++) {
+    const g = directions[i];
+    const h = directions[i + 1];
+    if (g?.type === 'power' && h?.type === 'power') sector = Math.max(sector, Math.min(g.exponent - g.error, h.exponent - h.error));
+  }
+  // The written exponent, when every measurement of a power agrees with it (within its error and 0.02); directions
+  // or sides where K stays bounded (a kernel that is zero on one side) do not contradict it.
   let written = false;
   const w = locus.written;
   if (w && w.type === 'power' && worst.type === 'power' && measured.length > 0
-    && measured.every((g) => g.type === 'power' && Math.abs(g.exponent - w.exponent) <= g.error + 0.02)) {
+    && measured.every((g) => g.type === 'none' || (g.type === 'power' && Math.abs(g.exponent - w.exponent) <= g.error + 0.02))) {
     worst = { type: 'power', exponent: w.exponent, error: 0 };
     upper = w.exponent;
-    lower = w.exponent;
+    if (!point || directions[2]?.type === 'power') lower = w.exponent;
+    if (sector > -Infinity) sector = w.exponent;
     written = true;
   } else if (w && w.type === 'log' && worst.type === 'log') {
     written = true;
@@ -187,8 +225,8 @@ export function estimateSingularity(kernel: CompiledKernel, locus: Locus, a: num
     bounded = verdict(hiBound < 0.5, lower >= 0.5);
     hilbertSchmidt = bounded;
   } else {
-    bounded = verdict(hiBound <= 1, lower > 1);
-    hilbertSchmidt = verdict(hiBound < 1, lower >= 1);
+    bounded = verdict(hiBound <= 1, Math.max(lower, sector) > 1);
+    hilbertSchmidt = verdict(hiBound < 1, Math.max(lower, sector) >= 1);
   }
   return {
     locus, type: worst.type, exponent: worst.exponent, point, at,

@@ -149,7 +149,7 @@ function runScaled(
   });
   const fatal = singularities.find((s) => !s.integrable);
   if (fatal) {
-    const where = describeLine(fatal.locus);
+    const where = fatal.point ? `the corner (t, s) = (${Number(fatal.at[0].toPrecision(6))}, ${Number(fatal.at[1].toPrecision(6))})` : describeLine(fatal.locus);
     return empty(`|K| grows like d^(−${fatal.exponent.toFixed(2)}) toward ${where}, which is not integrable, so the operator is not bounded on L²`);
   }
   const target = classTarget(options, singularities);
