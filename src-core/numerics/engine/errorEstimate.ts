@@ -22,11 +22,15 @@ export const safetyFactor = 4;
 /**
  * @param values the approximations, coarse to fine (complex as [re, im] pairs or reals)
  * @param floor rounding-level error below which differences are noise
+ * @param minRatio the contraction per level that the error cannot beat, when the kind of kernel fixes one (0: none).
+ *   The observed ratio of two differences may be lucky; a singularity whose integrability margin is small makes
+ *   the true ratio close to 1 while the differences look small (see spectralEngine.ts, levelContraction).
  */
 export function estimateSequenceError(
   values: readonly (readonly [number, number])[],
   floor: number,
   cautious = false,
+  minRatio = 0,
 ): SequenceEstimate {
   const k = values.length - 1;
   if (k < 1) return { error: Infinity, ratio: NaN, converging: false };
@@ -39,8 +43,14 @@ export function estimateSequenceError(
   const ek1 = diff(k - 1);
   if (ek <= floor && ek1 <= 4 * floor) return { error: floor, ratio: 0, converging: true };
   const ratio = ek1 > 0 ? ek / ek1 : ek > 0 ? Infinity : 0;
+  if (minRatio > 0 && Math.max(ratio, minRatio) >= 0.9) {
+    // A known slow rate (minRatio, see the parameter): the geometric tail at that rate, however close to 1 (and at
+    // that rate when the last differences did not shrink: the levels are still before the asymptotic regime).
+    const r = ratio < 1 ? Math.max(ratio, minRatio) : minRatio;
+    return { error: Math.max((safetyFactor * r * ek) / (1 - r), 2 * Math.max(ek, ek1), floor), ratio, converging: false };
+  }
   if (ratio < 0.9) {
-    const r = Math.max(ratio, 1e-3);
+    const r = Math.max(ratio, minRatio, 1e-3);
     // Cautious mode (sub-geometric convergence, as for hp-refinement of singular kernels, where the ratio of
     // successive differences keeps growing): never claim less than the last difference.
     const geometric = safetyFactor * (r * ek) / (1 - r);
