@@ -197,6 +197,21 @@ describe('removable singularities are smooth kernels', () => {
     const sp = k.spectrum!;
     for (const e of sp.eigenvalues.slice(0, 4)) expect(e.error / sp.norm!.value).toBeLessThanOrEqual(1e-13);
   });
+
+  // K(t, t) is the limit along the diagonal: 3 for sin(3(t − s))/(t − s), so the trace is 3; cos t for
+  // (sin t − sin s)/(t − s), so the trace is sin 1; e^t for (e^t − e^s)/(t − s), so e − 1 (closed forms, common
+  // practice). A trace is reported, and its error covers the closed form.
+  it.each([
+    ['sin(3 * (t - s)) / (t - s)', 3],
+    ['(sin(t) - sin(s)) / (t - s)', Math.sin(1)],
+    ['(exp(t) - exp(s)) / (t - s)', Math.E - 1],
+  ])('%s has a trace, within its error of the closed form', (body, truth) => {
+    const r = analyzeText(`domain [0, 1]\nkernel k(t, s) = ${body}\n`);
+    const trace = r.kernels[0].spectrum!.trace!;
+    expect(trace).not.toBeNull();
+    expect(Math.abs(trace.value - truth)).toBeLessThanOrEqual(trace.error);
+    expect(trace.error).toBeLessThan(1e-10);
+  });
 });
 
 // Lines on which K stays bounded but that end in a corner singularity: the kernel is zero on the side of the
